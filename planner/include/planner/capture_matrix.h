@@ -1,0 +1,66 @@
+// The capture matrix: cells of operating state x wind-speed bin x TI bin, each
+// with a minimum number of valid 10-minute records.
+//
+// Bins are [lo, hi). Bin sizes and counts are agreed per campaign with the
+// certification body (IEC 61400-13 leaves them to be adapted), so they are
+// always configuration. Cells are laid out per state as a grid of wind bins x
+// TI bins; a state without TI bins has one TI "bin" covering everything.
+#ifndef PLANNER_CAPTURE_MATRIX_H_
+#define PLANNER_CAPTURE_MATRIX_H_
+
+#include <string>
+#include <vector>
+
+namespace planner {
+
+// What the turbine was doing during a record.
+enum class OperatingState {
+  kProduction,  // available, cut-in <= V < cut-out, not stopped for high wind
+  kParked,      // parked or idling: below cut-in, above cut-out, or restarting
+};
+inline constexpr int kOperatingStateCount = 2;
+
+// "production" / "parked".
+const char* OperatingStateName(OperatingState s);
+
+struct Bin {
+  double lo = 0.0;  // inclusive
+  double hi = 0.0;  // exclusive
+};
+
+struct Cell {
+  OperatingState state = OperatingState::kProduction;
+  Bin wind_ms;
+  bool ti_binned = false;  // false: any TI; ti_pct is then unused
+  Bin ti_pct;              // TI bin in percent
+  int required = 0;        // minimum count of valid records, >= 1
+  bool optional = false;   // reported, but does not hold up completion
+};
+
+// Cells of one state as a grid. cell_index[w * ti_bins.size() + t] is the
+// index into CaptureMatrix::cells, or -1 if that grid position has no cell
+// (min_records 0).
+struct StateGrid {
+  OperatingState state = OperatingState::kProduction;
+  std::vector<Bin> wind_bins_ms;  // sorted, non-overlapping, gaps allowed
+  std::vector<Bin> ti_bins_pct;   // sorted, non-overlapping; empty = not binned
+  std::vector<int> cell_index;
+};
+
+struct CaptureMatrix {
+  std::vector<Cell> cells;
+  std::vector<StateGrid> grids;  // at most one per state
+};
+
+// Index of the bin containing x, or -1. bins must be sorted, non-overlapping.
+int FindBin(const std::vector<Bin>& bins, double x);
+
+// Number of cells that hold up completion.
+int RequiredCellCount(const CaptureMatrix& m);
+
+// Human label, e.g. "production 11-12 m/s TI 12-16 %" or "parked 25-26 m/s".
+std::string CellLabel(const Cell& c);
+
+}  // namespace planner
+
+#endif  // PLANNER_CAPTURE_MATRIX_H_

@@ -1,0 +1,67 @@
+// Aggregation of many runs into the answer an engineer reads: weeks to
+// completion with their risk, and the state of every cell at the deadline.
+// A week is 1,008 ten-minute records; weeks count from the start date.
+#ifndef PLANNER_FORECAST_H_
+#define PLANNER_FORECAST_H_
+
+#include <cstdint>
+#include <optional>
+#include <vector>
+
+#include "planner/capture_matrix.h"
+#include "planner/quantile.h"
+#include "planner/simulation.h"
+
+namespace planner {
+
+struct CellForecast {
+  int index = 0;  // into CaptureMatrix::cells
+  Cell cell;
+  // Valid records at the deadline over the runs.
+  double count_mean = 0, count_p10 = 0, count_p50 = 0, count_p90 = 0;
+  double p_full_by_deadline = 0;  // share of runs with the cell full by then
+  // Weeks until the cell reached its minimum in half / 90 % of the runs;
+  // nullopt where fewer runs than that reached it while simulated.
+  std::optional<double> weeks_to_full_p50;
+  std::optional<double> weeks_to_full_p90;
+  double p_last_to_fill = 0;  // share of all runs in which it filled last
+};
+
+struct ForecastSummary {
+  long runs = 0;
+  uint64_t seed = 0;
+  double deadline_weeks = 0;
+  double horizon_weeks = 0;
+
+  // Completion weeks; the mean only when every run completed.
+  std::optional<double> mean_weeks;
+  std::optional<double> mean_se_weeks;  // Monte-Carlo standard error of the mean
+  QuantileEstimate p10, p50, p80, p90;
+
+  double p_complete_by_deadline = 0;
+  double p_incomplete_at_horizon = 0;
+
+  std::vector<CellForecast> cells;  // in matrix order
+  int bottleneck_cell = -1;         // most often last to fill, -1 if none
+
+  // Shares of simulated time (diagnostics that explain the answer).
+  double turbine_availability = 0;
+  double daq_availability = 0;
+  double valid_sector_share = 0;
+};
+
+ForecastSummary SummarizeForecast(const CaptureMatrix& matrix, int64_t deadline_steps,
+                                  int64_t horizon_steps,
+                                  const std::vector<RunResult>& runs, uint64_t seed);
+
+// Records -> weeks.
+inline double StepsToWeeks(int64_t steps) { return static_cast<double>(steps) / 1008.0; }
+
+// Cells sorted from least to most likely to be full by the deadline (ties:
+// lower expected share of the minimum first); at most `limit`.
+std::vector<const CellForecast*> ThinnestCells(const ForecastSummary& s, int limit,
+                                               bool include_optional);
+
+}  // namespace planner
+
+#endif  // PLANNER_FORECAST_H_

@@ -1,0 +1,31 @@
+// Many simulated campaigns over a thread pool. Run i always uses the stream
+// (seed, i) and lands in slot i, so results are identical for any thread
+// count.
+#ifndef PLANNER_MONTE_CARLO_H_
+#define PLANNER_MONTE_CARLO_H_
+
+#include <cstdint>
+#include <vector>
+
+#include "planner/progress.h"
+#include "planner/simulation.h"
+
+namespace planner {
+
+struct MonteCarloOptions {
+  int runs = 2000;     // number of simulated campaigns, >= 1
+  uint64_t seed = 1;   // master seed
+  int threads = 0;     // worker threads; 0 = all hardware threads
+  int first_run = 0;   // index of the first run (to extend a set of runs)
+};
+
+// Runs options.runs campaigns; result[i] is run first_run + i.
+std::vector<RunResult> RunMonteCarlo(const Simulator& sim, const MonteCarloOptions& options,
+                                     ProgressSink* progress);
+
+// Threads actually used for `requested` (0 = hardware concurrency, >= 1).
+int EffectiveThreads(int requested);
+
+}  // namespace planner
+
+#endif  // PLANNER_MONTE_CARLO_H_

@@ -1,0 +1,74 @@
+// One simulated campaign, 10 minutes at a time. The core of fillcast: plain
+// structs in, plain structs out; no I/O, no clock, no globals, no exceptions
+// (the plan is validated before a Simulator is built).
+//
+// Per step (see docs/methods.md for sources):
+//  1. direction: sector Markov chain (keep with probability r, else draw from
+//     the sector frequencies);
+//  2. speed: latent standard-normal AR(1) z' = phi z + sqrt(1 - phi^2) e,
+//     phi = exp(-10 min / tau), mapped to the sector's Weibull scaled by the
+//     month, hour and year factors: v = A f (-ln(1 - Phi(z)))^(1/k)
+//     (Brown, Katz & Murphy 1984, normal-transform AR method);
+//  3. turbulence: TI lognormal given v, with its own latent AR(1);
+//  4. turbine and data-acquisition outages: alternating renewal processes;
+//  5. operating state with cut-out hysteresis; valid sector; quality filter;
+//  6. the record goes into its cell; completion when every required cell is
+//     full.
+// A run stops at the later of completion and the deadline, or at the horizon.
+#ifndef PLANNER_SIMULATION_H_
+#define PLANNER_SIMULATION_H_
+
+#include <cstdint>
+#include <memory>
+#include <vector>
+
+#include "planner/plan.h"
+
+namespace planner {
+
+// What one run leaves behind (per-run summary; no per-step history).
+struct RunResult {
+  // Records elapsed from the start when the last required cell filled
+  // (completion at the end of that record), or -1 if not within the horizon.
+  int64_t completion_step = -1;
+  // Cell that filled last (the bottleneck of this run), -1 if incomplete.
+  int last_cell = -1;
+  // Per cell: valid records at the deadline.
+  std::vector<uint32_t> count_at_deadline;
+  // Per cell: records elapsed when the cell reached its minimum, -1 if not
+  // while the run was simulated.
+  std::vector<int64_t> full_step;
+  // Per cell: valid records when the run stopped.
+  std::vector<uint32_t> count_at_end;
+  int64_t simulated_steps = 0;
+  // Diagnostics over the simulated steps (for tests and reports).
+  int64_t turbine_up_steps = 0;
+  int64_t daq_up_steps = 0;
+  int64_t valid_sector_steps = 0;
+};
+
+struct CompiledModel;  // lookup tables built once per plan (sim/compiled_model.h)
+
+class Simulator {
+ public:
+  // plan must have been validated (readers do this).
+  explicit Simulator(const Plan& plan);
+  ~Simulator();
+  Simulator(const Simulator&) = delete;
+  Simulator& operator=(const Simulator&) = delete;
+
+  // Simulates run `run_index` of master seed `seed` into *out (reusing its
+  // buffers). Thread-safe: may be called concurrently.
+  void Run(uint64_t seed, uint64_t run_index, RunResult* out) const;
+
+  int cell_count() const;
+  int64_t deadline_steps() const;
+  int64_t horizon_steps() const;
+
+ private:
+  std::unique_ptr<const CompiledModel> model_;
+};
+
+}  // namespace planner
+
+#endif  // PLANNER_SIMULATION_H_
