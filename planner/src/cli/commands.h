@@ -1,0 +1,27 @@
+// The subcommands of the fillcast CLI. Each lives in its own file and adds
+// itself to the app; main() only dispatches and maps errors to exit codes.
+#ifndef PLANNER_CLI_COMMANDS_H_
+#define PLANNER_CLI_COMMANDS_H_
+
+#include <functional>
+
+namespace CLI {
+class App;
+}
+
+namespace planner {
+
+// Each Add* registers a subcommand and returns the action main() runs when it
+// was chosen. Actions return the process exit code.
+using CommandAction = std::function<int()>;
+
+CommandAction AddForecastCommand(CLI::App& app);
+
+// Exit codes.
+inline constexpr int kExitOk = 0;
+inline constexpr int kExitInputError = 2;
+inline constexpr int kExitInternalError = 70;
+
+}  // namespace planner
+
+#endif  // PLANNER_CLI_COMMANDS_H_

@@ -1,0 +1,45 @@
+// fillcast: forecasts how fast a load-measurement campaign fills its IEC
+// 61400-13 capture matrix. main() only builds the command line, dispatches and
+// maps errors to exit codes; each subcommand lives in its own file.
+#include <CLI/CLI.hpp>
+
+#include <exception>
+#include <iostream>
+#include <vector>
+
+#include "cli/commands.h"
+#include "planner/error.h"
+
+int main(int argc, char** argv) {
+  using namespace planner;
+  CLI::App app(
+      "fillcast " FILLCAST_VERSION
+      " - forecasts how many weeks a wind-turbine load-measurement campaign needs to "
+      "fill its capture matrix (IEC 61400-13), with the risk, from a site's wind and "
+      "turbulence model, the turbine's downtime and the target matrix.",
+      "fillcast");
+  app.set_version_flag("--version,-V", "fillcast " FILLCAST_VERSION);
+  app.require_subcommand(1);
+  app.footer(
+      "A forecast is an estimate, not a promise. See README.md and docs/ for the "
+      "file formats and methods.");
+  std::vector<CommandAction> actions = {AddForecastCommand(app)};
+  try {
+    app.parse(argc, argv);
+  } catch (const CLI::ParseError& e) {
+    return app.exit(e);
+  }
+  try {
+    for (const CommandAction& action : actions) {
+      const int code = action();
+      if (code >= 0) return code;
+    }
+    return kExitOk;
+  } catch (const InputError& e) {
+    std::cerr << "fillcast: error: " << e.what() << "\n";
+    return kExitInputError;
+  } catch (const std::exception& e) {
+    std::cerr << "fillcast: internal error: " << e.what() << "\n";
+    return kExitInternalError;
+  }
+}

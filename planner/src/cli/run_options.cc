@@ -1,0 +1,48 @@
+#include "cli/run_options.h"
+
+#include <CLI/CLI.hpp>
+
+#include <string>
+
+#include "planner/error.h"
+
+namespace planner {
+
+namespace {
+constexpr long kMaxRuns = 10000000;
+constexpr int kMaxThreads = 1024;
+}  // namespace
+
+void AddRunOptions(CLI::App* cmd, RunOptionArgs* args) {
+  cmd->add_option("--runs", args->runs, "Simulated campaigns (default 2000)")
+      ->type_name("N");
+  cmd->add_option("--seed", args->seed,
+                  "Master seed; same seed, same answer for any thread count (default 20270301)")
+      ->type_name("S");
+  cmd->add_option("--threads", args->threads, "Worker threads (default 0 = all cores)")
+      ->type_name("T");
+  cmd->add_flag("--quiet,-q", args->quiet,
+                "No progress line; with --json, no terminal summary either");
+  cmd->add_flag("--force", args->force,
+                "Overwrite output files even if fillcast did not write them");
+}
+
+MonteCarloOptions ValidateRunOptions(const RunOptionArgs& args) {
+  if (args.runs < 1 || args.runs > kMaxRuns) {
+    throw InputError("--runs: " + std::to_string(args.runs) +
+                     " is invalid; expected a whole number from 1 to " +
+                     std::to_string(kMaxRuns));
+  }
+  if (args.threads < 0 || args.threads > kMaxThreads) {
+    throw InputError("--threads: " + std::to_string(args.threads) +
+                     " is invalid; expected 0 (all cores) or a whole number up to " +
+                     std::to_string(kMaxThreads));
+  }
+  MonteCarloOptions mc;
+  mc.runs = static_cast<int>(args.runs);
+  mc.seed = args.seed;
+  mc.threads = args.threads;
+  return mc;
+}
+
+}  // namespace planner

@@ -1,0 +1,187 @@
+// Reading campaign plans (docs/plan.md). Site models: site_model_reader.cc;
+// the capture matrix: capture_matrix_reader.cc.
+#include "planner/plan_reader.h"
+
+#include <cmath>
+#include <filesystem>
+#include <string>
+#include <vector>
+
+#include "io/capture_matrix_reader.h"
+#include "io/yaml_fields.h"
+
+namespace planner {
+namespace {
+
+namespace fs = std::filesystem;
+using io::Field;
+using io::FieldMap;
+using io::Interval;
+using io::kInfinity;
+
+const std::vector<std::string> kPlanFields = {
+    "name",     "site_model",        "campaign", "turbine", "valid_sectors_deg",
+    "outages",  "quality_reject_fraction",       "capture_matrix"};
+const std::vector<std::string> kCampaignFields = {"start", "deadline", "horizon_weeks"};
+const std::vector<std::string> kTurbineFields = {
+    "name",       "rated_power_kw", "rotor_diameter_m", "hub_height_m",
+    "cut_in_ms",  "rated_ms",       "cut_out_ms",       "restart_ms"};
+const std::vector<std::string> kOutagesFields = {"turbine", "data_acquisition",
+                                                 "parked_counts_during_outage"};
+const std::vector<std::string> kOutageModelFields = {"mtbf_h", "mttr_h"};
+
+// Twenty years: longer horizons are typing mistakes, and cost run time.
+constexpr int kMaxHorizonWeeks = 1040;
+constexpr double kMaxWindSpeedMs = 50.0;
+constexpr double kDefaultRestartMarginMs = 3.0;
+
+// "above <name> (<value>)" pieces of turbine messages.
+std::string Named(const std::string& name, double value) {
+  return name + " (" + io::FormatNumber(value) + ")";
+}
+
+void ReadCampaign(const Field& f, Plan* plan) {
+  const FieldMap m(f, kCampaignFields);
+  plan->start = io::AsDate(m.Get("start"));
+  const Field deadline = m.Get("deadline");
+  plan->deadline = io::AsDate(deadline);
+  const int64_t deadline_days = DaysBetween(plan->start, plan->deadline);
+  if (deadline_days <= 0) {
+    io::Fail(deadline, io::Text(deadline) + " is not after the start (" +
+                           FormatDate(plan->start) + "); the deadline must be later");
+  }
+  plan->horizon_weeks = io::ReadWholeNumber(
+      m, "horizon_weeks", Interval("[]", 1, kMaxHorizonWeeks, "weeks"), 156);
+  if (plan->horizon_weeks * int64_t{7} < deadline_days) {
+    const int64_t needed = (deadline_days + 6) / 7;
+    const std::optional<Field> given = m.Find("horizon_weeks");
+    const std::string what = given ? io::Text(*given) : "the default 156";
+    const Field at = given ? *given : Field{YAML::Node(), m.PathOf("horizon_weeks"), f.where};
+    io::Fail(at, what + " weeks end before the deadline (" +
+                     io::FormatNumber(std::round(deadline_days / 0.7) / 10.0) +
+                     " weeks after the start); must be at least " + std::to_string(needed));
+  }
+}
+
+// restart_ms defaults to cut_out_ms - 3 and must lie in (cut_in, cut_out].
+void ReadRestart(const FieldMap& m, TurbineSpec* t) {
+  const std::optional<Field> f = m.Find("restart_ms");
+  const Field at = f ? *f : Field{YAML::Node(), m.PathOf("restart_ms"), m.self().where};
+  t->restart_ms = f ? io::AsNumber(*f, Interval("(]", 0, kMaxWindSpeedMs, "m/s"))
+                    : t->cut_out_ms - kDefaultRestartMarginMs;
+  if (t->restart_ms > t->cut_in_ms && t->restart_ms <= t->cut_out_ms) return;
+  const std::string what =
+      f ? io::Text(*f) : "the default cut_out_ms - 3 = " + io::FormatNumber(t->restart_ms);
+  io::Fail(at, what + " must be above " + Named("cut_in_ms", t->cut_in_ms) +
+                   " and at most " + Named("cut_out_ms", t->cut_out_ms));
+}
+
+TurbineSpec ReadTurbine(const Field& f) {
+  const FieldMap m(f, kTurbineFields);
+  const io::Limits speed = Interval("(]", 0, kMaxWindSpeedMs, "m/s");
+  TurbineSpec t;
+  t.name = io::ReadName(m, "name");
+  t.rated_power_kw = io::ReadNumber(m, "rated_power_kw", Interval("(]", 0, 1e6, "kW"), 0.0);
+  t.rotor_diameter_m = io::ReadNumber(m, "rotor_diameter_m", Interval("(]", 0, 500, "m"), 0.0);
+  t.hub_height_m = io::ReadNumber(m, "hub_height_m", Interval("(]", 0, 500, "m"), 0.0);
+  t.cut_in_ms = io::ReadNumber(m, "cut_in_ms", speed);
+  t.cut_out_ms = io::ReadNumber(m, "cut_out_ms", speed);
+  if (t.cut_in_ms >= t.cut_out_ms) {
+    io::Fail(m.Get("cut_in_ms"), io::Text(m.Get("cut_in_ms")) + " must be below " +
+                                     Named("cut_out_ms", t.cut_out_ms));
+  }
+  const Field rated = m.Get("rated_ms");
+  t.rated_ms = io::AsNumber(rated, speed);
+  if (t.rated_ms <= t.cut_in_ms || t.rated_ms > t.cut_out_ms) {
+    io::Fail(rated, io::Text(rated) + " must be above " + Named("cut_in_ms", t.cut_in_ms) +
+                        " and at most " + Named("cut_out_ms", t.cut_out_ms));
+  }
+  ReadRestart(m, &t);
+  return t;
+}
+
+AngleRange ReadAngleRange(const Field& f) {
+  const auto [from, to] = io::AsPair(f);
+  AngleRange range;
+  range.from_deg = io::AsNumber(from, Interval("[)", 0, 360, "degrees"));
+  range.to_deg = io::AsNumber(to, Interval("[]", 0, 360, "degrees"));
+  if (range.from_deg == range.to_deg) {
+    io::Fail(f, io::PairText(f) + " is an empty sector; a sector runs clockwise from the "
+                                  "first angle to the second (write [0, 360] for the full "
+                                  "circle)");
+  }
+  return range;
+}
+
+std::vector<AngleRange> ReadValidSectors(const Field& f) {
+  const std::vector<Field> items = io::AsList(f);
+  if (items.empty()) {
+    io::Fail(f, "is empty; give at least one [from, to] sector, or leave the field out "
+                "for the full circle");
+  }
+  std::vector<AngleRange> sectors;
+  for (const Field& item : items) sectors.push_back(ReadAngleRange(item));
+  return sectors;
+}
+
+OutageModel ReadOutageModel(const Field& f) {
+  const FieldMap m(f, kOutageModelFields);
+  OutageModel model;
+  model.mtbf_h = io::ReadNumber(m, "mtbf_h", Interval("[]", 0, 1e6, "h"));
+  const Field mttr = m.Get("mttr_h");
+  model.mttr_h = io::AsNumber(mttr, Interval("[]", 0, 1e5, "h"));
+  if (model.mtbf_h > 0.0 && model.mttr_h == 0.0) {
+    io::Fail(mttr, io::Text(mttr) + " must be above 0 when mtbf_h is above 0 (a repair "
+                                    "takes time); set mtbf_h to 0 for no outages");
+  }
+  return model;
+}
+
+void ReadOutages(const Field& f, Plan* plan) {
+  const FieldMap m(f, kOutagesFields);
+  if (const auto t = m.Find("turbine")) plan->turbine_outages = ReadOutageModel(*t);
+  if (const auto d = m.Find("data_acquisition")) plan->daq_outages = ReadOutageModel(*d);
+  plan->parked_counts_during_outage = io::ReadBool(m, "parked_counts_during_outage", false);
+}
+
+// The site model path is relative to the plan's folder.
+void ReadSite(const Field& f, const std::string& base_dir, Plan* plan) {
+  const std::string given = io::AsText(f);
+  if (given.empty()) io::Fail(f, "is empty; give the path of a site model file");
+  const fs::path resolved =
+      base_dir.empty() ? fs::path(given) : (fs::path(base_dir) / given).lexically_normal();
+  std::error_code ec;
+  if (!fs::is_regular_file(resolved, ec)) {
+    io::Fail(f, "'" + given + "' is not a file (looked for '" + resolved.string() +
+                    "'); give a path relative to the plan's folder");
+  }
+  plan->site_file = resolved.string();
+  plan->site = LoadSiteModel(plan->site_file);
+}
+
+}  // namespace
+
+Plan ParsePlan(const std::string& yaml_text, const std::string& file_name,
+               const std::string& base_dir) {
+  const FieldMap m(io::ParseDocument(yaml_text, file_name), kPlanFields);
+  Plan plan;
+  plan.name = io::ReadName(m, "name");
+  plan.source_file = file_name;
+  ReadCampaign(m.Get("campaign"), &plan);
+  plan.turbine = ReadTurbine(m.Get("turbine"));
+  if (const auto f = m.Find("valid_sectors_deg")) plan.valid_sectors = ReadValidSectors(*f);
+  if (const auto f = m.Find("outages")) ReadOutages(*f, &plan);
+  plan.quality_reject_fraction =
+      io::ReadNumber(m, "quality_reject_fraction", Interval("[)", 0, 1), 0.0);
+  plan.matrix = io::ReadCaptureMatrix(m.Get("capture_matrix"), plan.turbine);
+  // Last, so that the plan's own mistakes are reported before the site's.
+  ReadSite(m.Get("site_model"), base_dir, &plan);
+  return plan;
+}
+
+Plan LoadPlan(const std::string& path) {
+  const std::string text = io::ReadInputFile(path, "plan");
+  return ParsePlan(text, path, fs::path(path).parent_path().string());
+}
+
+}  // namespace planner

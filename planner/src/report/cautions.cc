@@ -1,0 +1,18 @@
+#include "report/cautions.h"
+
+namespace planner {
+
+std::vector<std::string> StandardCautions() {
+  return {
+      "This forecast is an estimate from a model of the weather, the turbine and "
+      "its outages. It is not a promise: the real campaign can take longer or "
+      "shorter.",
+      "The capture-matrix bins and counts, the valid measurement sectors and the "
+      "test procedures must be those agreed with the certification body under the "
+      "current edition of the standards.",
+      "Work on the turbine and the measurement equipment follows local safety rules "
+      "and is done by qualified people; fillcast plans none of it.",
+  };
+}
+
+}  // namespace planner

@@ -1,0 +1,329 @@
+#include "planner/forecast_report.h"
+
+#include <algorithm>
+#include <cmath>
+#include <cstdarg>
+#include <cstdio>
+#include <nlohmann/json.hpp>
+#include <sstream>
+
+#include "report/cautions.h"
+
+namespace planner {
+namespace {
+
+using Json = nlohmann::ordered_json;
+
+constexpr int kTextWidth = 100;
+// Widest cell label in the thin-cell table: its other columns take 58.
+constexpr size_t kMaxLabelWidth = 42;
+
+std::string Printf(const char* format, ...) __attribute__((format(printf, 1, 2)));
+std::string Printf(const char* format, ...) {
+  va_list args, copy;
+  va_start(args, format);
+  va_copy(copy, args);
+  const int size = std::vsnprintf(nullptr, 0, format, copy);
+  va_end(copy);
+  std::string out(size > 0 ? static_cast<size_t>(size) : 0, '\0');
+  if (size > 0) std::vsnprintf(&out[0], out.size() + 1, format, args);
+  va_end(args);
+  return out;
+}
+
+// Whole numbers without decimals, others with one.
+std::string Compact(double x) {
+  return x == std::floor(x) ? Printf("%.0f", x) : Printf("%.1f", x);
+}
+
+std::string Percent(double share) { return Printf("%.1f %%", 100.0 * share); }
+
+// Completion after `weeks` from 00:00 of the start date is done by 00:00 of
+// start + ceil(7 weeks) days, the same convention as the (exclusive)
+// deadline. The allowance keeps whole days from rounding up.
+Date DoneByDate(const Date& start, double weeks) {
+  const double days = weeks * 7.0;
+  return AddDays(start,
+                 static_cast<int64_t>(std::ceil(days - 1e-9 * std::max(1.0, days))));
+}
+
+std::string DoneBy(const Date& start, const std::optional<double>& weeks) {
+  return weeks ? FormatDate(DoneByDate(start, *weeks)) : std::string();
+}
+
+std::string WeeksText(const std::optional<double>& weeks, int width) {
+  return weeks ? Printf("%*.1f", width, *weeks) : Printf("%*s", width, "not reached");
+}
+
+std::string CiText(const QuantileEstimate& q) {
+  if (q.ci_lo && q.ci_hi) return Printf("%.1f - %.1f", *q.ci_lo, *q.ci_hi);
+  if (q.ci_hi) return Printf("up to %.1f", *q.ci_hi);
+  if (q.ci_lo) return Printf("from %.1f", *q.ci_lo);
+  return "not available";
+}
+
+// Word-wraps `text` to kTextWidth; the first line starts with `first`, the
+// others with as many spaces.
+std::string Wrap(const std::string& first, const std::string& text) {
+  const std::string indent(first.size(), ' ');
+  std::istringstream words(text);
+  std::string out = first, line_start = first, word;
+  size_t line_len = first.size();
+  bool line_empty = true;
+  while (words >> word) {
+    if (!line_empty && line_len + 1 + word.size() > static_cast<size_t>(kTextWidth)) {
+      out += "\n" + indent;
+      line_len = indent.size();
+      line_empty = true;
+    }
+    if (!line_empty) {
+      out += ' ';
+      ++line_len;
+    }
+    out += word;
+    line_len += word.size();
+    line_empty = false;
+  }
+  return out + "\n";
+}
+
+std::string FitLabel(std::string label, size_t width) {
+  if (label.size() > width) label = label.substr(0, width - 3) + "...";
+  return label;
+}
+
+// Situational notes on this particular result (the fixed cautions follow).
+std::vector<std::string> ResultNotes(const ForecastSummary& s) {
+  std::vector<std::string> notes;
+  if (s.runs > 0 && s.runs < 1000) {
+    notes.push_back(
+        Printf("Only %ld runs: the 95 %% intervals are wide and the shares are "
+               "coarse; more runs narrow them.",
+               s.runs));
+  }
+  if (s.p_incomplete_at_horizon > 0) {
+    notes.push_back(Printf(
+        "%s of runs did not complete within the %.0f-week horizon. Quantiles above "
+        "that share are shown as not reached, and there is no mean.",
+        Percent(s.p_incomplete_at_horizon).c_str(), s.horizon_weeks));
+  }
+  long never_full = 0;
+  for (const CellForecast& c : s.cells) {
+    if (!c.cell.optional && c.p_full_by_deadline == 0.0) ++never_full;
+  }
+  if (s.runs > 0 && never_full > 0) {
+    notes.push_back(
+        Printf("%ld required cell%s full by the deadline in no run: the "
+               "deadline cannot be met as planned.",
+               never_full, never_full == 1 ? " was" : "s were"));
+  }
+  return notes;
+}
+
+// ---- text ------------------------------------------------------------------
+
+std::string TextHeader(const Plan& plan, const ForecastSummary& s,
+                       const ReportContext& ctx) {
+  std::string out = Printf("fillcast %s - campaign forecast\n", ctx.tool_version.c_str());
+  out += Wrap("  Plan:      ", plan.name);
+  out += Wrap("  Site:      ", plan.site.name);
+  if (!plan.turbine.name.empty()) out += Wrap("  Turbine:   ", plan.turbine.name);
+  out += Printf("  Start:     %s\n", FormatDate(plan.start).c_str());
+  out += Printf("  Deadline:  %s (%.1f weeks after the start)\n",
+                FormatDate(plan.deadline).c_str(), s.deadline_weeks);
+  out += Printf("  Horizon:   %s weeks\n", Compact(s.horizon_weeks).c_str());
+  out += Printf("  Runs:      %ld (seed %llu, %d thread%s)\n", s.runs,
+                static_cast<unsigned long long>(s.seed), ctx.threads,
+                ctx.threads == 1 ? "" : "s");
+  return out;
+}
+
+std::string TextCompletion(const Plan& plan, const ForecastSummary& s) {
+  std::string out = "\nWeeks to a full capture matrix (all required cells)\n";
+  out += Printf("  %-6s %11s   %-18s %s\n", "", "weeks", "95 % CI, weeks", "done by");
+  const std::pair<const char*, const QuantileEstimate*> rows[] = {
+      {"P10", &s.p10}, {"P50", &s.p50}, {"P80", &s.p80}, {"P90", &s.p90}};
+  for (const auto& [name, q] : rows) {
+    out += Printf("  %-6s %s   %-18s %s\n", name, WeeksText(q->value, 11).c_str(),
+                  CiText(*q).c_str(), DoneBy(plan.start, q->value).c_str());
+  }
+  if (s.mean_weeks) {
+    const std::string se =
+        s.mean_se_weeks ? Printf("+/- %.1f (1 s.e.)", *s.mean_se_weeks) : std::string();
+    out += Printf("  %-6s %11.1f   %-18s %s\n", "mean", *s.mean_weeks, se.c_str(),
+                  DoneBy(plan.start, s.mean_weeks).c_str());
+  } else {
+    out += Printf("  %-6s %11s   (not every run completed within the horizon)\n", "mean",
+                  "none");
+  }
+  out += "\n";
+  const std::string by_deadline =
+      "Complete by the deadline (" + FormatDate(plan.deadline) + "):";
+  out += Printf("  %-46s %8s of runs\n", by_deadline.c_str(),
+                Percent(s.p_complete_by_deadline).c_str());
+  const std::string in_horizon =
+      "Not complete within the horizon (" + Compact(s.horizon_weeks) + " weeks):";
+  out += Printf("  %-46s %8s of runs\n", in_horizon.c_str(),
+                Percent(s.p_incomplete_at_horizon).c_str());
+  return out;
+}
+
+std::string TextThinCells(const ForecastSummary& s, const ReportContext& ctx) {
+  const std::vector<const CellForecast*> thin =
+      ThinnestCells(s, ctx.thin_cell_rows, false);
+  int required_cells = 0;
+  for (const CellForecast& c : s.cells) required_cells += c.cell.optional ? 0 : 1;
+  std::string out = Printf(
+      "\nCells least likely to be full by the deadline (%zu of %d "
+      "required cells)\n",
+      thin.size(), required_cells);
+  if (thin.empty()) return out + "  (none)\n";
+
+  out += "  Counts are valid 10-minute records; weeks count from the start.\n";
+  size_t w = 4;
+  for (const CellForecast* c : thin) w = std::max(w, CellLabel(c->cell).size());
+  w = std::min(w, kMaxLabelWidth);
+  const int lw = static_cast<int>(w);
+  out += Printf("  %-*s  %8s  %-31s  %11s\n", lw, "", "",
+                "------- at the deadline -------", "Weeks to");
+  out += Printf("  %-*s  %8s  %8s  %11s  %8s  %11s\n", lw, "Cell", "Required", "Expected",
+                "P10-P90", "P(full)", "full, P50");
+  for (const CellForecast* c : thin) {
+    const std::string range = Printf("%.0f-%.0f", c->count_p10, c->count_p90);
+    out += Printf("  %-*s  %8d  %8.1f  %11s  %8s  %s\n", lw,
+                  FitLabel(CellLabel(c->cell), w).c_str(), c->cell.required,
+                  c->count_mean, range.c_str(), Percent(c->p_full_by_deadline).c_str(),
+                  WeeksText(c->weeks_to_full_p50, 11).c_str());
+  }
+  return out;
+}
+
+std::string TextBottleneckAndDiagnostics(const ForecastSummary& s) {
+  std::string out = "\n";
+  if (s.bottleneck_cell >= 0 && s.bottleneck_cell < static_cast<int>(s.cells.size())) {
+    const CellForecast& c = s.cells[static_cast<size_t>(s.bottleneck_cell)];
+    out += Wrap("", Printf("Most often last to fill: %s (in %.0f %% of runs)",
+                           CellLabel(c.cell).c_str(), 100.0 * c.p_last_to_fill));
+  } else {
+    out += "Most often last to fill: none (no run completed within the horizon)\n";
+  }
+  out += "\nShares of the simulated time (diagnostics)\n";
+  out += Printf("  Turbine available:            %8s\n",
+                Percent(s.turbine_availability).c_str());
+  out += Printf("  Data acquisition available:   %8s\n",
+                Percent(s.daq_availability).c_str());
+  out += Printf("  Wind from a valid sector:     %8s\n",
+                Percent(s.valid_sector_share).c_str());
+  return out;
+}
+
+// ---- JSON ------------------------------------------------------------------
+
+Json OptionalNumber(const std::optional<double>& x) {
+  return x ? Json(*x) : Json(nullptr);
+}
+
+Json QuantileJson(const QuantileEstimate& q) {
+  return Json::array({OptionalNumber(q.ci_lo), OptionalNumber(q.ci_hi)});
+}
+
+Json CellJson(const CellForecast& c) {
+  Json j;
+  j["index"] = c.index;
+  j["label"] = CellLabel(c.cell);
+  j["state"] = OperatingStateName(c.cell.state);
+  j["wind_ms"] = Json::array({c.cell.wind_ms.lo, c.cell.wind_ms.hi});
+  j["ti"] = c.cell.ti_binned ? Json::array({c.cell.ti_pct.lo, c.cell.ti_pct.hi})
+                             : Json(nullptr);
+  j["required"] = c.cell.required;
+  j["optional"] = c.cell.optional;
+  j["count_at_deadline"] = {{"mean", c.count_mean},
+                            {"p10", c.count_p10},
+                            {"p50", c.count_p50},
+                            {"p90", c.count_p90}};
+  j["p_full_by_deadline"] = c.p_full_by_deadline;
+  j["weeks_to_full"] = {{"p50", OptionalNumber(c.weeks_to_full_p50)},
+                        {"p90", OptionalNumber(c.weeks_to_full_p90)}};
+  j["p_last_to_fill"] = c.p_last_to_fill;
+  return j;
+}
+
+Json CompletionJson(const ForecastSummary& s) {
+  Json j;
+  j["mean"] = OptionalNumber(s.mean_weeks);
+  j["mean_se"] = OptionalNumber(s.mean_se_weeks);
+  j["p10"] = OptionalNumber(s.p10.value);
+  j["p50"] = OptionalNumber(s.p50.value);
+  j["p80"] = OptionalNumber(s.p80.value);
+  j["p90"] = OptionalNumber(s.p90.value);
+  j["ci95"] = {{"p10", QuantileJson(s.p10)},
+               {"p50", QuantileJson(s.p50)},
+               {"p80", QuantileJson(s.p80)},
+               {"p90", QuantileJson(s.p90)}};
+  return j;
+}
+
+Json DatesJson(const Plan& plan, const ForecastSummary& s) {
+  auto date = [&](const std::optional<double>& weeks) {
+    return weeks ? Json(FormatDate(DoneByDate(plan.start, *weeks))) : Json(nullptr);
+  };
+  return {{"p10", date(s.p10.value)},
+          {"p50", date(s.p50.value)},
+          {"p80", date(s.p80.value)},
+          {"p90", date(s.p90.value)}};
+}
+
+}  // namespace
+
+std::string FormatForecastText(const Plan& plan, const ForecastSummary& s,
+                               const ReportContext& ctx) {
+  std::string out = TextHeader(plan, s, ctx);
+  out += TextCompletion(plan, s);
+  out += TextThinCells(s, ctx);
+  out += TextBottleneckAndDiagnostics(s);
+  const std::vector<std::string> notes = ResultNotes(s);
+  if (!notes.empty()) {
+    out += "\nNotes on this result\n";
+    for (const std::string& n : notes) out += Wrap("  - ", n);
+  }
+  out += "\nCautions\n";
+  for (const std::string& c : StandardCautions()) out += Wrap("  - ", c);
+  return out;
+}
+
+std::string FormatForecastJson(const Plan& plan, const ForecastSummary& s,
+                               const ReportContext& ctx) {
+  Json j;
+  j["tool"] = {{"name", "fillcast"}, {"version", ctx.tool_version}};
+  j["plan"] = {{"name", plan.name},
+               {"site", plan.site.name},
+               {"turbine", plan.turbine.name},
+               {"start", FormatDate(plan.start)},
+               {"deadline", FormatDate(plan.deadline)},
+               {"horizon_weeks", s.horizon_weeks}};
+  j["runs"] = s.runs;
+  j["seed"] = s.seed;
+  j["deadline_weeks"] = s.deadline_weeks;
+  j["completion_weeks"] = CompletionJson(s);
+  j["completion_dates"] = DatesJson(plan, s);
+  j["p_complete_by_deadline"] = s.p_complete_by_deadline;
+  j["p_incomplete_at_horizon"] = s.p_incomplete_at_horizon;
+  if (s.bottleneck_cell >= 0 && s.bottleneck_cell < static_cast<int>(s.cells.size())) {
+    const CellForecast& c = s.cells[static_cast<size_t>(s.bottleneck_cell)];
+    j["bottleneck"] = {{"cell", c.index},
+                       {"label", CellLabel(c.cell)},
+                       {"p_last_to_fill", c.p_last_to_fill}};
+  } else {
+    j["bottleneck"] = nullptr;
+  }
+  j["cells"] = Json::array();
+  for (const CellForecast& c : s.cells) j["cells"].push_back(CellJson(c));
+  j["diagnostics"] = {{"turbine_availability", s.turbine_availability},
+                      {"daq_availability", s.daq_availability},
+                      {"valid_sector_share", s.valid_sector_share}};
+  j["notes"] = ResultNotes(s);
+  j["cautions"] = StandardCautions();
+  return j.dump(2) + "\n";
+}
+
+}  // namespace planner

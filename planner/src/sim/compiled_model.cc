@@ -1,0 +1,152 @@
+#include "sim/compiled_model.h"
+
+#include <algorithm>
+#include <cmath>
+
+namespace planner {
+
+TiLaw::TiLaw(const TurbulenceModel& model) {
+  if (model.kind == TurbulenceModel::Kind::kTable) {
+    table_kind_ = true;
+    for (const TiTableRow& row : model.table) {
+      const LogNormalParams p = LogNormalFromMoments(row.ti_mean, row.ti_std);
+      rows_ms_.push_back({row.wind_lo_ms, row.wind_hi_ms});
+      mu_.push_back(p.mu);
+      s_.push_back(p.s);
+    }
+    return;
+  }
+  const int points = static_cast<int>(80.0 / kStepMs) + 1;
+  for (int i = 0; i < points; ++i) {
+    const LogNormalParams p = TiLogNormalAt(model, std::max(kMinSpeedMs, i * kStepMs));
+    mu_.push_back(p.mu);
+    s_.push_back(p.s);
+  }
+}
+
+double TiLaw::Sample(double speed_ms, double x) const {
+  if (table_kind_) {
+    // Nearest row outside the table or in a gap (as SigmaMomentsAt does).
+    int i = FindBin(rows_ms_, speed_ms);
+    if (i < 0) {
+      double best = 1e300;
+      for (size_t r = 0; r < rows_ms_.size(); ++r) {
+        const double d = std::max(rows_ms_[r].lo - speed_ms, speed_ms - rows_ms_[r].hi);
+        if (d < best) best = d, i = static_cast<int>(r);
+      }
+    }
+    return std::exp(mu_[i] + s_[i] * x);
+  }
+  double g = std::max(speed_ms, kMinSpeedMs) / kStepMs;
+  const double last = static_cast<double>(mu_.size() - 1);
+  if (g > last - 1e-9) g = last - 1e-9;
+  const int i = static_cast<int>(g);
+  const double f = g - i;
+  const double mu = mu_[i] + f * (mu_[i + 1] - mu_[i]);
+  const double s = s_[i] + f * (s_[i + 1] - s_[i]);
+  return std::exp(mu + s * x);
+}
+
+namespace {
+
+RenewalLaw CompileOutages(const OutageModel& m) {
+  RenewalLaw law;
+  law.enabled = m.mtbf_h > 0.0 && m.mttr_h > 0.0;
+  law.mean_up_steps = m.mtbf_h * kStepsPerHour;
+  law.mean_down_steps = m.mttr_h * kStepsPerHour;
+  return law;
+}
+
+// Valid spans of sector i as fractions of its width.
+std::vector<Bin> ValidSpans(const std::vector<AngleRange>& valid, double start_deg,
+                            double width_deg) {
+  // Sample the boundaries exactly: collect range edges inside the sector.
+  std::vector<double> cuts = {0.0, 1.0};
+  for (const AngleRange& r : valid) {
+    for (double edge : {r.from_deg, r.to_deg}) {
+      double rel = std::fmod(edge - start_deg + 720.0, 360.0) / width_deg;
+      if (rel > 0.0 && rel < 1.0) cuts.push_back(rel);
+    }
+  }
+  std::sort(cuts.begin(), cuts.end());
+  std::vector<Bin> spans;
+  for (size_t i = 0; i + 1 < cuts.size(); ++i) {
+    const double mid_deg = start_deg + 0.5 * (cuts[i] + cuts[i + 1]) * width_deg;
+    bool inside = false;
+    for (const AngleRange& r : valid) inside = inside || AngleRangeContains(r, mid_deg);
+    if (!inside || cuts[i + 1] <= cuts[i]) continue;
+    if (!spans.empty() && spans.back().hi == cuts[i]) {
+      spans.back().hi = cuts[i + 1];
+    } else {
+      spans.push_back({cuts[i], cuts[i + 1]});
+    }
+  }
+  return spans;
+}
+
+void CompileWeather(const SiteModel& site, const std::vector<AngleRange>& valid,
+                    CompiledModel* m) {
+  std::vector<double> freq;
+  const double width = SectorWidthDeg(site);
+  for (size_t i = 0; i < site.sectors.size(); ++i) {
+    const Sector& s = site.sectors[i];
+    freq.push_back(s.frequency);
+    m->sector_scale_ms.push_back(s.weibull.scale_ms);
+    m->speed_transform.emplace_back(s.weibull.shape);
+    const double start = static_cast<double>(i) * width - 0.5 * width;
+    m->sector_valid_spans.push_back(ValidSpans(valid, start, width));
+  }
+  m->sector_chain.keep_probability = site.sector_persistence;
+  m->sector_chain.frequencies = AliasTable(freq);
+  m->monthly_factors = site.monthly_factors;
+  m->hourly_factors = site.hourly_factors;
+  m->interannual_std = site.interannual_std;
+  m->wind_ar1 = LatentAr1(site.wind_persistence_h);
+  m->ti_ar1 = LatentAr1(site.turbulence.persistence_h);
+  m->ti_law = TiLaw(site.turbulence);
+}
+
+void CompileMatrix(const CaptureMatrix& matrix, CompiledModel* m) {
+  for (const StateGrid& g : matrix.grids) {
+    CompiledGrid& cg = m->grids[static_cast<int>(g.state)];
+    cg.present = true;
+    cg.wind_bins_ms = g.wind_bins_ms;
+    for (const Bin& b : g.ti_bins_pct) cg.ti_bins.push_back({b.lo / 100.0, b.hi / 100.0});
+    cg.cell_index = g.cell_index;
+  }
+  for (const Cell& c : matrix.cells) {
+    m->required.push_back(static_cast<uint32_t>(c.required));
+    m->optional.push_back(c.optional ? 1 : 0);
+    if (!c.optional) ++m->required_cells;
+  }
+}
+
+void CompileCalendar(const Plan& plan, CompiledModel* m) {
+  m->deadline_steps = DeadlineSteps(plan);
+  m->horizon_steps = HorizonSteps(plan);
+  const int64_t days = m->horizon_steps / kStepsPerDay + 1;
+  const int64_t first = DaysFromCivil(plan.start);
+  for (int64_t d = 0; d < days; ++d) {
+    m->day_month.push_back(static_cast<uint8_t>(CivilFromDays(first + d).month - 1));
+    m->day_year.push_back(static_cast<uint16_t>(d / 365));
+  }
+}
+
+}  // namespace
+
+CompiledModel CompileModel(const Plan& plan) {
+  CompiledModel m;
+  CompileWeather(plan.site, plan.valid_sectors, &m);
+  m.cut_in_ms = plan.turbine.cut_in_ms;
+  m.cut_out_ms = plan.turbine.cut_out_ms;
+  m.restart_ms = plan.turbine.restart_ms;
+  m.turbine_outages = CompileOutages(plan.turbine_outages);
+  m.daq_outages = CompileOutages(plan.daq_outages);
+  m.parked_counts_during_outage = plan.parked_counts_during_outage;
+  m.quality_reject = plan.quality_reject_fraction;
+  CompileMatrix(plan.matrix, &m);
+  CompileCalendar(plan, &m);
+  return m;
+}
+
+}  // namespace planner

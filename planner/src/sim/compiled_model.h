@@ -1,0 +1,83 @@
+// Everything a run needs, precomputed once per plan: lookup tables, per-day
+// calendar, the matrix as flat arrays. Read-only while runs execute, so one
+// instance serves all threads.
+#ifndef PLANNER_SIM_COMPILED_MODEL_H_
+#define PLANNER_SIM_COMPILED_MODEL_H_
+
+#include <array>
+#include <cstdint>
+#include <vector>
+
+#include "planner/capture_matrix.h"
+#include "planner/plan.h"
+#include "planner/turbulence.h"
+#include "sim/renewal_process.h"
+#include "sim/weather_process.h"
+
+namespace planner {
+
+// A state's grid with TI edges as fractions, ready for lookups.
+struct CompiledGrid {
+  bool present = false;
+  std::vector<Bin> wind_bins_ms;
+  std::vector<Bin> ti_bins;  // fractions; empty = not binned
+  std::vector<int> cell_index;
+};
+
+// TI given V: lognormal (mu, s) tabulated on a speed grid (IEC NTM) or looked
+// up per row (measured table).
+class TiLaw {
+ public:
+  TiLaw() = default;
+  explicit TiLaw(const TurbulenceModel& model);
+  // TI (fraction) at speed v > 0 for the latent standard normal x.
+  double Sample(double speed_ms, double x) const;
+
+ private:
+  static constexpr double kStepMs = 0.05;
+  static constexpr double kMinSpeedMs = 0.5;  // below: TI of 0.5 m/s
+  bool table_kind_ = false;
+  std::vector<double> mu_, s_;      // on the grid, or per row
+  std::vector<Bin> rows_ms_;        // table kind only
+};
+
+struct CompiledModel {
+  // Weather.
+  SectorChain sector_chain;
+  std::vector<double> sector_scale_ms;        // Weibull A per sector
+  std::vector<SpeedTransform> speed_transform;  // per sector (its k)
+  std::array<double, 12> monthly_factors{};
+  std::array<double, 24> hourly_factors{};
+  double interannual_std = 0;
+  LatentAr1 wind_ar1;
+  LatentAr1 ti_ar1;
+  TiLaw ti_law;
+
+  // Valid sector: per sector, valid direction spans as fractions [lo, hi) of
+  // the sector's width (measured clockwise from its start).
+  std::vector<std::vector<Bin>> sector_valid_spans;
+
+  // Turbine.
+  double cut_in_ms = 3, cut_out_ms = 25, restart_ms = 22;
+  RenewalLaw turbine_outages, daq_outages;
+  bool parked_counts_during_outage = false;
+  double quality_reject = 0;
+
+  // Matrix.
+  std::array<CompiledGrid, kOperatingStateCount> grids;
+  std::vector<uint32_t> required;  // per cell
+  std::vector<uint8_t> optional;   // per cell
+  int required_cells = 0;
+
+  // Calendar: per day from start, month index 0..11 and campaign year.
+  std::vector<uint8_t> day_month;
+  std::vector<uint16_t> day_year;
+  int64_t deadline_steps = 0;
+  int64_t horizon_steps = 0;
+};
+
+CompiledModel CompileModel(const Plan& plan);
+
+}  // namespace planner
+
+#endif  // PLANNER_SIM_COMPILED_MODEL_H_

@@ -1,0 +1,74 @@
+// The stochastic pieces of the weather, each small enough to test alone:
+//  * SectorChain: direction sector Markov chain. Each step keeps its sector
+//    with probability r, else draws one from the sector frequencies; the
+//    stationary distribution is then exactly the frequencies.
+//  * LatentAr1: standard-normal AR(1), z' = phi z + sqrt(1 - phi^2) e with
+//    phi = exp(-step / tau); lag-k autocorrelation phi^k (Brown, Katz &
+//    Murphy 1984, J. Climate Appl. Meteor.; from memory).
+//  * SpeedTransform: z -> (-ln(1 - Phi(z)))^(1/k), the standard-normal to
+//    unit-scale Weibull map, tabulated on a fine grid of z with linear
+//    interpolation (relative error below 1e-4 for speeds above 1 % of A,
+//    absolute error below 1e-6 A under it; z clamped to [-8, 8], a range
+//    left with probability 1e-15).
+#ifndef PLANNER_SIM_WEATHER_PROCESS_H_
+#define PLANNER_SIM_WEATHER_PROCESS_H_
+
+#include <cmath>
+#include <vector>
+
+#include "sim/alias_table.h"
+
+namespace planner {
+
+// phi for a time scale tau_h (hours) at 10-minute steps; 0 when tau_h == 0.
+inline double Ar1Phi(double tau_h) {
+  return tau_h > 0.0 ? std::exp(-(1.0 / 6.0) / tau_h) : 0.0;
+}
+
+struct LatentAr1 {
+  double phi = 0.0;
+  double innovation = 1.0;  // sqrt(1 - phi^2)
+  explicit LatentAr1(double tau_h = 0.0)
+      : phi(Ar1Phi(tau_h)), innovation(std::sqrt(1.0 - phi * phi)) {}
+  double Next(double z, double e) const { return phi * z + innovation * e; }
+};
+
+struct SectorChain {
+  double keep_probability = 0.0;
+  AliasTable frequencies;
+  // u_keep, u_draw uniform in [0, 1).
+  int Next(int sector, double u_keep, double u_draw) const {
+    return u_keep < keep_probability ? sector : frequencies.Draw(u_draw);
+  }
+};
+
+class SpeedTransform {
+ public:
+  static constexpr double kZMin = -8.0;
+  static constexpr double kZMax = 8.0;
+  static constexpr int kIntervals = 2048;
+
+  SpeedTransform() = default;
+  explicit SpeedTransform(double weibull_k);
+
+  // Unit-scale Weibull quantile of Phi(z); multiply by A for m/s.
+  double operator()(double z) const {
+    double x = (z - kZMin) * kInvStep;
+    if (x < 0.0) x = 0.0;
+    if (x > kIntervals - 1e-9) x = kIntervals - 1e-9;
+    const int i = static_cast<int>(x);
+    const double f = x - i;
+    return table_[i] + f * (table_[i + 1] - table_[i]);
+  }
+
+  // The exact map, for building the table and for tests.
+  static double Exact(double z, double weibull_k);
+
+ private:
+  static constexpr double kInvStep = kIntervals / (kZMax - kZMin);
+  std::vector<double> table_;
+};
+
+}  // namespace planner
+
+#endif  // PLANNER_SIM_WEATHER_PROCESS_H_

@@ -1,0 +1,135 @@
+// End-to-end: the real fillcast binary on the demo plan and on bad input
+// (the way Ninja's output tests run the real program).
+#include <gtest/gtest.h>
+
+#include <cstdio>
+#include <filesystem>
+#include <fstream>
+#include <nlohmann/json.hpp>
+#include <sstream>
+#include <string>
+
+namespace {
+
+namespace fs = std::filesystem;
+
+struct Outcome {
+  int exit_code = -1;
+  std::string output;  // stdout and stderr together
+};
+
+Outcome RunFillcast(const std::string& args) {
+  const std::string cmd = std::string(FILLCAST_BINARY) + " " + args + " 2>&1";
+  Outcome o;
+  FILE* pipe = popen(cmd.c_str(), "r");
+  if (pipe == nullptr) return o;
+  char buf[4096];
+  size_t n;
+  while ((n = fread(buf, 1, sizeof buf, pipe)) > 0) o.output.append(buf, n);
+  const int status = pclose(pipe);
+  o.exit_code = WIFEXITED(status) ? WEXITSTATUS(status) : -1;
+  return o;
+}
+
+std::string Demo() { return std::string(FILLCAST_SOURCE_DIR) + "/demo-site/plan.yaml"; }
+
+fs::path TempDir() {
+  fs::path dir = fs::temp_directory_path() /
+                 ("fillcast-cli-test-" + std::to_string(::getpid()));
+  fs::create_directories(dir);
+  return dir;
+}
+
+nlohmann::json ReadJson(const fs::path& p) {
+  std::ifstream in(p);
+  return nlohmann::json::parse(in);
+}
+
+TEST(ForecastCliTest, DemoForecastPrintsSummaryAndCautions) {
+  const Outcome o = RunFillcast("forecast " + Demo() + " --runs 200 --seed 3");
+  ASSERT_EQ(o.exit_code, 0) << o.output;
+  EXPECT_NE(o.output.find("P90"), std::string::npos) << o.output;
+  EXPECT_NE(o.output.find("weeks"), std::string::npos);
+  EXPECT_NE(o.output.find("not a promise"), std::string::npos);
+}
+
+TEST(ForecastCliTest, SameSeedSameJsonForOneAndTwoThreads) {
+  const fs::path dir = TempDir();
+  const Outcome a = RunFillcast("forecast " + Demo() + " --runs 300 --seed 11 --threads 1 " +
+                                "--quiet --json " + (dir / "one.json").string());
+  const Outcome b = RunFillcast("forecast " + Demo() + " --runs 300 --seed 11 --threads 2 " +
+                                "--quiet --json " + (dir / "two.json").string());
+  ASSERT_EQ(a.exit_code, 0) << a.output;
+  ASSERT_EQ(b.exit_code, 0) << b.output;
+  nlohmann::json one = ReadJson(dir / "one.json");
+  nlohmann::json two = ReadJson(dir / "two.json");
+  // Only the reported thread count may differ.
+  one.erase("threads");
+  two.erase("threads");
+  EXPECT_EQ(one.dump(), two.dump());
+  EXPECT_EQ(one["runs"], 300);
+  EXPECT_EQ(one["seed"], 11);
+  fs::remove_all(dir);
+}
+
+TEST(ForecastCliTest, RefusesToOverwriteAFileItDidNotWrite) {
+  const fs::path dir = TempDir();
+  const fs::path precious = dir / "notes.json";
+  std::ofstream(precious) << "{\"my\": \"notes\"}\n";
+  const Outcome o = RunFillcast("forecast " + Demo() + " --runs 20 --quiet --json " +
+                                precious.string());
+  EXPECT_EQ(o.exit_code, 2);
+  EXPECT_NE(o.output.find("was not written by fillcast"), std::string::npos) << o.output;
+  std::ifstream in(precious);
+  std::stringstream kept;
+  kept << in.rdbuf();
+  EXPECT_EQ(kept.str(), "{\"my\": \"notes\"}\n");
+  // Its own output it replaces without asking.
+  const fs::path ours = dir / "ours.json";
+  ASSERT_EQ(RunFillcast("forecast " + Demo() + " --runs 20 --quiet --json " + ours.string())
+                .exit_code, 0);
+  EXPECT_EQ(RunFillcast("forecast " + Demo() + " --runs 20 --quiet --json " + ours.string())
+                .exit_code, 0);
+  fs::remove_all(dir);
+}
+
+struct BadFlagCase {
+  std::string args;
+  std::string message;
+};
+
+class ForecastCliBadInputTest : public ::testing::TestWithParam<BadFlagCase> {};
+
+TEST_P(ForecastCliBadInputTest, ExitsNonZeroWithClearMessage) {
+  const BadFlagCase& c = GetParam();
+  const Outcome o = RunFillcast(c.args);
+  EXPECT_NE(o.exit_code, 0) << o.output;
+  EXPECT_NE(o.output.find(c.message), std::string::npos) << o.output;
+}
+
+INSTANTIATE_TEST_SUITE_P(
+    Flags, ForecastCliBadInputTest,
+    ::testing::Values(
+        BadFlagCase{"forecast " + Demo() + " --runs 0",
+                    "--runs: 0 is invalid; expected a whole number from 1 to 10000000"},
+        BadFlagCase{"forecast " + Demo() + " --runs -5",
+                    "--runs: -5 is invalid; expected a whole number from 1 to 10000000"},
+        BadFlagCase{"forecast " + Demo() + " --threads -1",
+                    "--threads: -1 is invalid; expected 0 (all cores)"},
+        BadFlagCase{"forecast " + Demo() + " --runs many", "--runs"},
+        BadFlagCase{"forecast /nonexistent/plan.yaml", "/nonexistent/plan.yaml"},
+        BadFlagCase{"forecast", "plan is required"},
+        BadFlagCase{"frobnicate", "frobnicate"}));
+
+TEST(ForecastCliTest, VersionAndHelp) {
+  const Outcome v = RunFillcast("--version");
+  EXPECT_EQ(v.exit_code, 0);
+  EXPECT_NE(v.output.find("fillcast " FILLCAST_VERSION), std::string::npos) << v.output;
+  const Outcome h = RunFillcast("forecast --help");
+  EXPECT_EQ(h.exit_code, 0);
+  for (const char* flag : {"--runs", "--seed", "--threads", "--json", "--quiet"}) {
+    EXPECT_NE(h.output.find(flag), std::string::npos) << flag;
+  }
+}
+
+}  // namespace

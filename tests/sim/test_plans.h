@@ -1,0 +1,41 @@
+// Plans built in code for simulation tests: small, exact, no YAML.
+#ifndef FILLCAST_TESTS_SIM_TEST_PLANS_H_
+#define FILLCAST_TESTS_SIM_TEST_PLANS_H_
+
+#include "planner/plan.h"
+
+namespace planner {
+namespace testing_plans {
+
+// One sector (Weibull a_ms, k), independent records, always available, all
+// directions valid, no quality rejects; one production cell [lo_ms, hi_ms)
+// without TI bins needing `required` records. Deadline after `deadline_days`,
+// horizon `horizon_weeks`.
+inline Plan SingleCellPlan(double a_ms, double k, double lo_ms, double hi_ms, int required,
+                           int deadline_days = 1, int horizon_weeks = 4) {
+  Plan p;
+  p.name = "single cell";
+  p.site.sectors = {Sector{1.0, Weibull{a_ms, k}}};
+  p.site.sector_persistence = 0.0;
+  p.site.wind_persistence_h = 0.0;
+  p.start = Date{2027, 1, 1};
+  p.deadline = AddDays(p.start, deadline_days);
+  p.horizon_weeks = horizon_weeks;
+  p.turbine.cut_in_ms = 0.5;
+  p.turbine.cut_out_ms = 60.0;
+  p.turbine.restart_ms = 57.0;
+  Cell cell;
+  cell.wind_ms = {lo_ms, hi_ms};
+  cell.required = required;
+  p.matrix.cells = {cell};
+  StateGrid grid;
+  grid.wind_bins_ms = {cell.wind_ms};
+  grid.cell_index = {0};
+  p.matrix.grids = {grid};
+  return p;
+}
+
+}  // namespace testing_plans
+}  // namespace planner
+
+#endif  // FILLCAST_TESTS_SIM_TEST_PLANS_H_
