@@ -114,6 +114,16 @@ TEST(QuantileEstimateTest, PointEstimateIsTypeOneOrderStatistic) {
   }
 }
 
+TEST(QuantileEstimateTest, WholeRankIsNotRoundedUpByFloatingPoint) {
+  // In exact arithmetic 100 x 0.07 = 7 and 100 x 0.14 = 14, so the estimates
+  // are X_(7) and X_(14); in doubles the products come out just above.
+  std::vector<double> x;
+  for (int i = 1; i <= 100; ++i) x.push_back(i);
+  EXPECT_EQ(EstimateQuantile(x, 0.07).value, 7.0);
+  EXPECT_EQ(EstimateQuantile(x, 0.14).value, 14.0);
+  EXPECT_EQ(EstimateQuantile(x, 0.29).value, 29.0);
+}
+
 TEST(QuantileEstimateTest, IntervalIsTheOrderStatisticsOfTheRanks) {
   std::vector<double> x;
   for (int i = 1; i <= 100; ++i) x.push_back(10.0 * i);

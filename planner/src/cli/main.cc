@@ -5,6 +5,7 @@
 
 #include <exception>
 #include <iostream>
+#include <string>
 #include <vector>
 
 #include "cli/commands.h"
@@ -24,6 +25,17 @@ int main(int argc, char** argv) {
       "A forecast is an estimate, not a promise. See README.md and docs/ for the "
       "file formats and methods.");
   std::vector<CommandAction> actions = {AddForecastCommand(app)};
+  std::string names;
+  bool known = false;
+  for (const CLI::App* sub : app.get_subcommands({})) {
+    names += (names.empty() ? "" : ", ") + sub->get_name();
+    known = known || (argc > 1 && sub->get_name() == argv[1]);
+  }
+  if (argc > 1 && argv[1][0] != '-' && !known) {
+    std::cerr << "fillcast: error: '" << argv[1] << "' is not a fillcast command; expected "
+              << "one of: " << names << " (see fillcast --help)\n";
+    return kExitInputError;
+  }
   try {
     app.parse(argc, argv);
   } catch (const CLI::ParseError& e) {

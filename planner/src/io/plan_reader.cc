@@ -101,7 +101,7 @@ TurbineSpec ReadTurbine(const Field& f) {
 }
 
 AngleRange ReadAngleRange(const Field& f) {
-  const auto [from, to] = io::AsPair(f);
+  const auto [from, to] = io::AsPair(f, "[from, to]");
   AngleRange range;
   range.from_deg = io::AsNumber(from, Interval("[)", 0, 360, "degrees"));
   range.to_deg = io::AsNumber(to, Interval("[]", 0, 360, "degrees"));

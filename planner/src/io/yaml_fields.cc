@@ -57,7 +57,9 @@ std::string Suggest(const std::string& key, const std::vector<std::string>& allo
   std::string best;
   std::size_t best_distance = 4;  // suggest within 3 edits (e.g. a missing "_ms")
   for (const std::string& candidate : allowed) {
-    const std::size_t d = EditDistance(key, candidate);
+    // A key that is the start of a valid one ("quality_reject") counts as close.
+    const bool prefix = key.size() >= 4 && candidate.compare(0, key.size(), key) == 0;
+    const std::size_t d = prefix ? 1 : EditDistance(key, candidate);
     if (d < best_distance) {
       best = candidate;
       best_distance = d;
@@ -135,7 +137,9 @@ void Fail(const Field& f, const std::string& message) { ThrowAt(f.where, f.path,
 
 std::string Describe(const YAML::Node& node) {
   if (!node.IsDefined() || node.IsNull()) return "nothing";
-  if (node.IsSequence()) return "a list";
+  if (node.IsSequence()) {
+    return "a list of " + std::to_string(node.size()) + (node.size() == 1 ? " item" : " items");
+  }
   if (node.IsMap()) return "a mapping";
   std::string text = node.Scalar();
   if (text.size() > kMaxQuotedChars) text = text.substr(0, kMaxQuotedChars) + "...";
@@ -296,9 +300,9 @@ std::vector<Field> AsList(const Field& f) {
   return items;
 }
 
-std::pair<Field, Field> AsPair(const Field& f) {
+std::pair<Field, Field> AsPair(const Field& f, const std::string& shape) {
   if (!f.node.IsSequence() || f.node.size() != 2) {
-    Fail(f, "expected a pair [lo, hi], got " + Describe(f.node));
+    Fail(f, "expected a pair " + shape + ", got " + Describe(f.node));
   }
   std::vector<Field> items = AsList(f);
   return {items[0], items[1]};

@@ -43,7 +43,7 @@ Field ParseDocument(const std::string& text, const std::string& file_name);
 [[noreturn]] void Fail(const Field& f, const std::string& message);
 
 // How a value reads in a message: a scalar's text in quotes ('abc'), or
-// "a list", "a mapping", "nothing".
+// "a list of 3 items", "a mapping", "nothing".
 std::string Describe(const YAML::Node& node);
 
 // A scalar's text as the user wrote it (for "30 must be below ...").
@@ -103,8 +103,8 @@ bool AsBool(const Field& f);
 std::string AsText(const Field& f);  // any scalar
 Date AsDate(const Field& f);         // YYYY-MM-DD, a real calendar date
 std::vector<Field> AsList(const Field& f);  // element paths "path[i]"
-// A list of exactly two items, [a, b].
-std::pair<Field, Field> AsPair(const Field& f);
+// A list of exactly two items; `shape` names them in messages.
+std::pair<Field, Field> AsPair(const Field& f, const std::string& shape = "[lo, hi]");
 // "[a, b]" as the user wrote it.
 std::string PairText(const Field& f);
 

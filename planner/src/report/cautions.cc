@@ -4,9 +4,8 @@ namespace planner {
 
 std::vector<std::string> StandardCautions() {
   return {
-      "This forecast is an estimate from a model of the weather, the turbine and "
-      "its outages. It is not a promise: the real campaign can take longer or "
-      "shorter.",
+      "A forecast is an estimate, not a promise: it comes from a model of the weather, "
+      "the turbine and its outages, and the real campaign may take longer or shorter.",
       "The capture-matrix bins and counts, the valid measurement sectors and the "
       "test procedures must be those agreed with the certification body under the "
       "current edition of the standards.",

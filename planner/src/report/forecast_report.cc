@@ -103,9 +103,9 @@ std::vector<std::string> ResultNotes(const ForecastSummary& s) {
   }
   if (s.p_incomplete_at_horizon > 0) {
     notes.push_back(Printf(
-        "%s of runs did not complete within the %.0f-week horizon. Quantiles above "
-        "that share are shown as not reached, and there is no mean.",
-        Percent(s.p_incomplete_at_horizon).c_str(), s.horizon_weeks));
+        "%s of runs did not complete within the %s-week horizon. A quantile that "
+        "falls among those runs is shown as not reached, and there is no mean.",
+        Percent(s.p_incomplete_at_horizon).c_str(), Compact(s.horizon_weeks).c_str()));
   }
   long never_full = 0;
   for (const CellForecast& c : s.cells) {

@@ -10,10 +10,11 @@ TiLaw::TiLaw(const TurbulenceModel& model) {
     table_kind_ = true;
     for (const TiTableRow& row : model.table) {
       const LogNormalParams p = LogNormalFromMoments(row.ti_mean, row.ti_std);
-      rows_ms_.push_back({row.wind_lo_ms, row.wind_hi_ms});
+      row_bins_ms_.push_back({row.wind_lo_ms, row.wind_hi_ms});
       mu_.push_back(p.mu);
       s_.push_back(p.s);
     }
+    rows_ms_ = BinLookup(row_bins_ms_);
     return;
   }
   const int points = static_cast<int>(80.0 / kStepMs) + 1;
@@ -24,18 +25,19 @@ TiLaw::TiLaw(const TurbulenceModel& model) {
   }
 }
 
-double TiLaw::Sample(double speed_ms, double x) const {
+double TiLaw::LogSample(double speed_ms, double x) const {
   if (table_kind_) {
     // Nearest row outside the table or in a gap (as SigmaMomentsAt does).
-    int i = FindBin(rows_ms_, speed_ms);
+    int i = rows_ms_.Find(speed_ms);
     if (i < 0) {
       double best = 1e300;
-      for (size_t r = 0; r < rows_ms_.size(); ++r) {
-        const double d = std::max(rows_ms_[r].lo - speed_ms, speed_ms - rows_ms_[r].hi);
+      for (size_t r = 0; r < row_bins_ms_.size(); ++r) {
+        const double d =
+            std::max(row_bins_ms_[r].lo - speed_ms, speed_ms - row_bins_ms_[r].hi);
         if (d < best) best = d, i = static_cast<int>(r);
       }
     }
-    return std::exp(mu_[i] + s_[i] * x);
+    return mu_[i] + s_[i] * x;
   }
   double g = std::max(speed_ms, kMinSpeedMs) / kStepMs;
   const double last = static_cast<double>(mu_.size() - 1);
@@ -44,7 +46,7 @@ double TiLaw::Sample(double speed_ms, double x) const {
   const double f = g - i;
   const double mu = mu_[i] + f * (mu_[i + 1] - mu_[i]);
   const double s = s_[i] + f * (s_[i + 1] - s_[i]);
-  return std::exp(mu + s * x);
+  return mu + s * x;
 }
 
 namespace {
@@ -110,8 +112,12 @@ void CompileMatrix(const CaptureMatrix& matrix, CompiledModel* m) {
   for (const StateGrid& g : matrix.grids) {
     CompiledGrid& cg = m->grids[static_cast<int>(g.state)];
     cg.present = true;
-    cg.wind_bins_ms = g.wind_bins_ms;
-    for (const Bin& b : g.ti_bins_pct) cg.ti_bins.push_back({b.lo / 100.0, b.hi / 100.0});
+    cg.wind = BinLookup(g.wind_bins_ms);
+    for (const Bin& b : g.ti_bins_pct) {
+      // ln 0 = -infinity: a bin starting at 0 % takes every TI below its hi.
+      cg.log_ti_lo.push_back(b.lo > 0 ? std::log(b.lo / 100.0) : -HUGE_VAL);
+      cg.log_ti_hi.push_back(std::log(b.hi / 100.0));
+    }
     cg.cell_index = g.cell_index;
   }
   for (const Cell& c : matrix.cells) {

@@ -11,16 +11,18 @@
 #include "planner/capture_matrix.h"
 #include "planner/plan.h"
 #include "planner/turbulence.h"
+#include "sim/bin_lookup.h"
 #include "sim/renewal_process.h"
 #include "sim/weather_process.h"
 
 namespace planner {
 
-// A state's grid with TI edges as fractions, ready for lookups.
+// A state's grid ready for lookups. TI bins are kept as natural logs of the
+// TI fraction, so a record's TI bin is found from ln TI without an exp().
 struct CompiledGrid {
   bool present = false;
-  std::vector<Bin> wind_bins_ms;
-  std::vector<Bin> ti_bins;  // fractions; empty = not binned
+  BinLookup wind;
+  std::vector<double> log_ti_lo, log_ti_hi;  // empty = not binned
   std::vector<int> cell_index;
 };
 
@@ -30,15 +32,16 @@ class TiLaw {
  public:
   TiLaw() = default;
   explicit TiLaw(const TurbulenceModel& model);
-  // TI (fraction) at speed v > 0 for the latent standard normal x.
-  double Sample(double speed_ms, double x) const;
+  // ln TI at speed v > 0 for the latent standard normal x.
+  double LogSample(double speed_ms, double x) const;
 
  private:
   static constexpr double kStepMs = 0.05;
   static constexpr double kMinSpeedMs = 0.5;  // below: TI of 0.5 m/s
   bool table_kind_ = false;
   std::vector<double> mu_, s_;      // on the grid, or per row
-  std::vector<Bin> rows_ms_;        // table kind only
+  BinLookup rows_ms_;               // table kind only
+  std::vector<Bin> row_bins_ms_;    // table kind only, for the nearest row
 };
 
 struct CompiledModel {

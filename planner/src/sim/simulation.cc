@@ -3,10 +3,9 @@
 #include <algorithm>
 #include <cmath>
 
-#include <boost/random/normal_distribution.hpp>
-
 #include "planner/random_stream.h"
 #include "sim/compiled_model.h"
+#include "sim/ziggurat_normal.h"
 
 namespace planner {
 namespace {
@@ -37,6 +36,7 @@ struct RunState {
   double x_ti = 0;         // latent TI normal
   bool high_wind_stop = false;
   int remaining = 0;       // required cells not yet full
+  int64_t turbine_up_steps = 0, daq_up_steps = 0, valid_sector_steps = 0;
 };
 
 class RunLoop {
@@ -55,6 +55,7 @@ class RunLoop {
   void Run();
 
  private:
+  void Stop(int64_t steps);
   void Start();
   void DrawYearFactors();
   void Step(int64_t step, double scale);
@@ -66,7 +67,7 @@ class RunLoop {
   Engine weather_;
   Engine turbine_engine_, daq_engine_;
   RenewalProcess turbine_, daq_;
-  boost::random::normal_distribution<double> normal_;
+  ZigguratNormal normal_;
   RunState s_;
   RunResult* out_;
   std::vector<double> year_factor_;  // per campaign year
@@ -80,7 +81,6 @@ void RunLoop::Start() {
   out_->completion_step = -1;
   out_->last_cell = -1;
   out_->simulated_steps = 0;
-  out_->turbine_up_steps = out_->daq_up_steps = out_->valid_sector_steps = 0;
   // Start in the stationary distribution of direction and speed.
   s_.sector = m_.sector_chain.frequencies.Draw(UniformDouble(weather_));
   s_.direction_u = UniformDouble(weather_);
@@ -104,12 +104,18 @@ void RunLoop::Count(int cell, int64_t step) {
 int RunLoop::CellOf(int state, double speed_ms, double x_ti) const {
   const CompiledGrid& g = m_.grids[state];
   if (!g.present) return -1;
-  const int w = FindBin(g.wind_bins_ms, speed_ms);
+  const int w = g.wind.Find(speed_ms);
   if (w < 0) return -1;
-  if (g.ti_bins.empty()) return g.cell_index[w];
-  const int t = FindBin(g.ti_bins, m_.ti_law.Sample(speed_ms, x_ti));
-  if (t < 0) return -1;
-  return g.cell_index[w * static_cast<int>(g.ti_bins.size()) + t];
+  const int ti_bins = static_cast<int>(g.log_ti_hi.size());
+  if (ti_bins == 0) return g.cell_index[w];
+  // ln TI against the ln edges; a short linear scan (a few TI bins).
+  const double log_ti = m_.ti_law.LogSample(speed_ms, x_ti);
+  for (int t = 0; t < ti_bins; ++t) {
+    if (log_ti < g.log_ti_hi[t]) {
+      return log_ti >= g.log_ti_lo[t] ? g.cell_index[w * ti_bins + t] : -1;
+    }
+  }
+  return -1;
 }
 
 void RunLoop::Step(int64_t step, double scale) {
@@ -136,9 +142,9 @@ void RunLoop::Step(int64_t step, double scale) {
   const bool turbine_up = turbine_.UpAt(step);
   const bool daq_up = daq_.UpAt(step);
   const bool sector_ok = InSpans(m_.sector_valid_spans[s_.sector], s_.direction_u);
-  out_->turbine_up_steps += turbine_up;
-  out_->daq_up_steps += daq_up;
-  out_->valid_sector_steps += sector_ok;
+  s_.turbine_up_steps += turbine_up;
+  s_.daq_up_steps += daq_up;
+  s_.valid_sector_steps += sector_ok;
   if (!daq_up || !sector_ok || LowUniform(r1) < m_.quality_reject) return;
   const bool producing = turbine_up && !s_.high_wind_stop && speed >= m_.cut_in_ms;
   if (!producing && !turbine_up && !m_.parked_counts_during_outage) return;
@@ -171,14 +177,20 @@ void RunLoop::Run() {
         if (step == m_.deadline_steps) out_->count_at_deadline = out_->count_at_end;
         if (step >= m_.horizon_steps ||
             (s_.remaining == 0 && step >= m_.deadline_steps)) {
-          out_->simulated_steps = step;
-          return;
+          return Stop(step);
         }
         Step(step, scale);
       }
     }
   }
-  out_->simulated_steps = step;
+  Stop(step);
+}
+
+void RunLoop::Stop(int64_t steps) {
+  out_->simulated_steps = steps;
+  out_->turbine_up_steps = s_.turbine_up_steps;
+  out_->daq_up_steps = s_.daq_up_steps;
+  out_->valid_sector_steps = s_.valid_sector_steps;
 }
 
 }  // namespace

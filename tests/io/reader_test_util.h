@@ -1,0 +1,39 @@
+// Helpers shared by the reader tests.
+#ifndef FILLCAST_TESTS_IO_READER_TEST_UTIL_H_
+#define FILLCAST_TESTS_IO_READER_TEST_UTIL_H_
+
+#include <functional>
+#include <string>
+
+#include "planner/error.h"
+
+namespace planner {
+namespace reader_test {
+
+// `text` with the first `from` replaced by `to`; a marker text if `from` is
+// missing, so that a mistyped case fails instead of testing the base text.
+inline std::string Replace(std::string text, const std::string& from,
+                           const std::string& to) {
+  const std::size_t at = text.find(from);
+  if (at == std::string::npos) return "test bug: '" + from + "' not in the base text";
+  return text.replace(at, from.size(), to);
+}
+
+// The InputError message `action` throws, or a marker if it throws none.
+inline std::string ErrorOf(const std::function<void()>& action) {
+  try {
+    action();
+  } catch (const InputError& e) {
+    return e.what();
+  }
+  return "(no error)";
+}
+
+inline std::string SourcePath(const std::string& relative) {
+  return std::string(FILLCAST_SOURCE_DIR) + "/" + relative;
+}
+
+}  // namespace reader_test
+}  // namespace planner
+
+#endif  // FILLCAST_TESTS_IO_READER_TEST_UTIL_H_
