@@ -58,7 +58,9 @@ void ExpectConsistentGrids(const CaptureMatrix& m) {
         EXPECT_EQ(c.state, g.state);
         EXPECT_DOUBLE_EQ(c.wind_ms.lo, g.wind_bins_ms[w].lo);
         EXPECT_EQ(c.ti_binned, !g.ti_bins_pct.empty());
-        if (c.ti_binned) EXPECT_DOUBLE_EQ(c.ti_pct.lo, g.ti_bins_pct[t].lo);
+        if (c.ti_binned && !g.ti_bins_pct.empty()) {
+          EXPECT_DOUBLE_EQ(c.ti_pct.lo, g.ti_bins_pct[t].lo);
+        }
         EXPECT_GE(c.required, 1);
       }
     }
@@ -84,12 +86,13 @@ TEST(CaptureMatrixReaderTest, CellsAreWindMajorThenTi) {
 }
 
 TEST(CaptureMatrixReaderTest, OverridesRemoveAndReweightCellsAndParkedComesLast) {
-  const std::string text = kBase +
-                           "    overrides:\n"
-                           "      - {wind_ms: [6, 7], min_records: 4}\n"
-                           "      - {wind_ms: [4, 5], ti_pct: [0, 8], optional: true}\n"
-                           "      - {wind_ms: [5, 6], ti_pct: [8, 12], min_records: 0}\n" +
-                           kParked;
+  const std::string text =
+      kBase +
+      "    overrides:\n"
+      "      - {wind_ms: [6, 7], min_records: 4}\n"
+      "      - {wind_ms: [4, 5], ti_pct: [0, 8], optional: true}\n"
+      "      - {wind_ms: [5, 6], ti_pct: [8, 12], min_records: 0}\n" +
+      kParked;
   const CaptureMatrix m = Matrix(text);
   ASSERT_EQ(m.grids.size(), 2u);
   EXPECT_EQ(m.grids[0].cell_index, (std::vector<int>{0, 1, 2, -1, 3, 4}));
@@ -122,8 +125,9 @@ TEST(CaptureMatrixReaderTest, LaterOverridesWin) {
 }
 
 TEST(CaptureMatrixReaderTest, RangeFormMakesEqualBinsEndingExactlyOnTo) {
-  const std::string text = Replace(kBase, "[4, 5, 6, 7]", "{from: 3, to: 4, width: 0.1}") +
-                           "    overrides: [{wind_ms: [3.7, 4], min_records: 1}]\n";
+  const std::string text =
+      Replace(kBase, "[4, 5, 6, 7]", "{from: 3, to: 4, width: 0.1}") +
+      "    overrides: [{wind_ms: [3.7, 4], min_records: 1}]\n";
   const CaptureMatrix m = Matrix(text);
   const StateGrid& g = m.grids[0];
   ASSERT_EQ(g.wind_bins_ms.size(), 10u);
@@ -140,8 +144,8 @@ TEST(CaptureMatrixReaderTest, RangeFormMakesEqualBinsEndingExactlyOnTo) {
 }
 
 TEST(CaptureMatrixReaderTest, PairsAllowGapsAndNoTiBinsIndexByWindAlone) {
-  const std::string text =
-      Replace(Replace(kBase, "[4, 5, 6, 7]", "[[4, 5], [8, 10]]"), "    ti_bins_pct: [0, 8, 12]\n", "");
+  const std::string text = Replace(Replace(kBase, "[4, 5, 6, 7]", "[[4, 5], [8, 10]]"),
+                                   "    ti_bins_pct: [0, 8, 12]\n", "");
   const CaptureMatrix m = Matrix(text);
   ASSERT_EQ(m.cells.size(), 2u);
   EXPECT_FALSE(m.cells[1].ti_binned);
@@ -197,10 +201,12 @@ std::string WithOverride(const std::string& entry) {
 std::vector<BadMatrix> BadMatrices() {
   return {
       {"no state", kBase.substr(0, kBase.find("capture_matrix")) + "capture_matrix: {}\n",
-       "plan.yaml:5:17: capture_matrix: has no operating state; give production, parked or "
+       "plan.yaml:5:17: capture_matrix: has no operating state; give production, parked "
+       "or "
        "both"},
       {"unknown state", Replace(kBase, "production:", "idle:"),
-       "plan.yaml:6:3: capture_matrix.idle: unknown field; valid fields: production, parked"},
+       "plan.yaml:6:3: capture_matrix.idle: unknown field; valid fields: production, "
+       "parked"},
       {"missing wind bins", Replace(kBase, "    wind_bins_ms: [4, 5, 6, 7]\n", ""),
        "plan.yaml:7:5: " + kWind + ": required field is missing"},
       {"width does not divide", WithWind("{from: 4, to: 8, width: 3}"),
@@ -210,18 +216,22 @@ std::vector<BadMatrix> BadMatrices() {
       {"negative from", WithWind("{from: -1, to: 8, width: 1}"),
        "plan.yaml:7:26: " + kWind + ".from: -1 is out of range; must be at least 0 m/s"},
       {"too many bins", WithWind("{from: 0, to: 30, width: 0.01}"),
-       "plan.yaml:7:44: " + kWind + ".width: 0.01 gives 3000 bins; at most 1000 are allowed"},
+       "plan.yaml:7:44: " + kWind +
+           ".width: 0.01 gives 3000 bins; at most 1000 are allowed"},
       {"edges not increasing", WithWind("[4, 5, 5, 6]"),
-       "plan.yaml:7:26: " + kWind + "[2]: 5 is not above the previous edge (5); edges must "
-       "increase"},
+       "plan.yaml:7:26: " + kWind +
+           "[2]: 5 is not above the previous edge (5); edges must "
+           "increase"},
       {"single edge", WithWind("[4]"),
        "plan.yaml:7:19: " + kWind + ": gives a single edge; a bin needs two: [lo, hi]"},
-      {"empty list", WithWind("[]"), "plan.yaml:7:19: " + kWind + ": is empty; " + kBinForms},
+      {"empty list", WithWind("[]"),
+       "plan.yaml:7:19: " + kWind + ": is empty; " + kBinForms},
       {"bins as text", WithWind("fast"),
        "plan.yaml:7:19: " + kWind + ": expected bins, got 'fast'; " + kBinForms},
       {"overlapping pairs", WithWind("[[4, 6], [5, 7]]"),
-       "plan.yaml:7:28: " + kWind + "[1]: [5, 7] overlaps or comes before the previous bin "
-       "(4-6 m/s); bins must be sorted and must not overlap (gaps are allowed)"},
+       "plan.yaml:7:28: " + kWind +
+           "[1]: [5, 7] overlaps or comes before the previous bin "
+           "(4-6 m/s); bins must be sorted and must not overlap (gaps are allowed)"},
       {"empty pair", WithWind("[[4, 4]]"),
        "plan.yaml:7:20: " + kWind + "[0]: [4, 4] is an empty bin; lo must be below hi"},
       {"edges mixed with pairs", WithWind("[4, [5, 6]]"),
@@ -231,30 +241,40 @@ std::vector<BadMatrix> BadMatrices() {
        "plan.yaml:8:26: capture_matrix.production.ti_bins_pct[2]: 8 is not above the "
        "previous edge (12); edges must increase"},
       {"negative min_records", Replace(kBase, "min_records: 10", "min_records: -1"),
-       "plan.yaml:9:18: capture_matrix.production.min_records: -1 is out of range; must be "
+       "plan.yaml:9:18: capture_matrix.production.min_records: -1 is out of range; must "
+       "be "
        "at least 0 and at most 1000000"},
       {"fractional min_records", Replace(kBase, "min_records: 10", "min_records: 2.5"),
-       "plan.yaml:9:18: capture_matrix.production.min_records: expected a whole number, got "
+       "plan.yaml:9:18: capture_matrix.production.min_records: expected a whole number, "
+       "got "
        "'2.5'"},
       {"override matches no cell", WithOverride("{wind_ms: [20, 25], min_records: 5}"),
-       "plan.yaml:11:19: " + kOverride + ".wind_ms: [20, 25] covers no bin; the bins run "
-       "from 4 to 7 m/s"},
+       "plan.yaml:11:19: " + kOverride +
+           ".wind_ms: [20, 25] covers no bin; the bins run "
+           "from 4 to 7 m/s"},
       {"override cuts a bin", WithOverride("{wind_ms: [4.5, 7], min_records: 5}"),
-       "plan.yaml:11:19: " + kOverride + ".wind_ms: [4.5, 7] cuts through the bin 4-5 m/s; "
-       "start and end the range on bin edges"},
+       "plan.yaml:11:19: " + kOverride +
+           ".wind_ms: [4.5, 7] cuts through the bin 4-5 m/s; "
+           "start and end the range on bin edges"},
       {"override empty range", WithOverride("{wind_ms: [5, 5], min_records: 5}"),
-       "plan.yaml:11:19: " + kOverride + ".wind_ms: [5, 5] is an empty range; lo must be "
-       "below hi"},
+       "plan.yaml:11:19: " + kOverride +
+           ".wind_ms: [5, 5] is an empty range; lo must be "
+           "below hi"},
       {"override TI range misses", WithOverride("{ti_pct: [12, 16], min_records: 1}"),
-       "plan.yaml:11:18: " + kOverride + ".ti_pct: [12, 16] covers no bin; the bins run "
-       "from 0 to 12 %"},
+       "plan.yaml:11:18: " + kOverride +
+           ".ti_pct: [12, 16] covers no bin; the bins run "
+           "from 0 to 12 %"},
       {"override sets nothing", WithOverride("{wind_ms: [4, 5]}"),
-       "plan.yaml:11:9: " + kOverride + ": sets nothing; give min_records, optional or both"},
+       "plan.yaml:11:9: " + kOverride +
+           ": sets nothing; give min_records, optional or both"},
       {"override unknown field", WithOverride("{wind_ms: [4, 5], required: 3}"),
-       "plan.yaml:11:27: " + kOverride + ".required: unknown field; valid fields: wind_ms, "
-       "ti_pct, min_records, optional"},
-      {"override optional not boolean", WithOverride("{wind_ms: [4, 5], optional: maybe}"),
-       "plan.yaml:11:37: " + kOverride + ".optional: expected true or false, got 'maybe'"},
+       "plan.yaml:11:27: " + kOverride +
+           ".required: unknown field; valid fields: wind_ms, "
+           "ti_pct, min_records, optional"},
+      {"override optional not boolean",
+       WithOverride("{wind_ms: [4, 5], optional: maybe}"),
+       "plan.yaml:11:37: " + kOverride +
+           ".optional: expected true or false, got 'maybe'"},
       {"overrides as a mapping", kBase + "    overrides: {wind_ms: [4, 5]}\n",
        "plan.yaml:10:16: capture_matrix.production.overrides: expected a list, got a "
        "mapping"},
@@ -263,19 +283,25 @@ std::vector<BadMatrix> BadMatrices() {
        "plan.yaml:13:26: capture_matrix.parked.overrides[0].ti_pct: this state has no TI "
        "bins (ti_bins_pct is not given); leave ti_pct out"},
       {"every cell optional", kBase + "    overrides: [{optional: true}]\n",
-       "plan.yaml:6:3: capture_matrix: has no required cell: every cell is optional or has "
+       "plan.yaml:6:3: capture_matrix: has no required cell: every cell is optional or "
+       "has "
        "min_records 0; at least one cell must hold up completion"},
       {"every cell removed", Replace(kBase, "min_records: 10", "min_records: 0"),
-       "plan.yaml:6:3: capture_matrix: has no required cell: every cell is optional or has "
+       "plan.yaml:6:3: capture_matrix: has no required cell: every cell is optional or "
+       "has "
        "min_records 0; at least one cell must hold up completion"},
       {"production below cut-in", WithWind("[1, 2, 3, 4]"),
-       "plan.yaml:7:19: " + kWind + ": the bin 1-2 m/s lies outside turbine.cut_in_ms to "
-       "cut_out_ms (3-25 m/s), so it could never fill; remove it or set its min_records to "
-       "0"},
+       "plan.yaml:7:19: " + kWind +
+           ": the bin 1-2 m/s lies outside turbine.cut_in_ms to "
+           "cut_out_ms (3-25 m/s), so it could never fill; remove it or set its "
+           "min_records to "
+           "0"},
       {"production above cut-out", WithWind("[[24, 25], [25, 26]]"),
-       "plan.yaml:7:19: " + kWind + ": the bin 25-26 m/s lies outside turbine.cut_in_ms to "
-       "cut_out_ms (3-25 m/s), so it could never fill; remove it or set its min_records to "
-       "0"},
+       "plan.yaml:7:19: " + kWind +
+           ": the bin 25-26 m/s lies outside turbine.cut_in_ms to "
+           "cut_out_ms (3-25 m/s), so it could never fill; remove it or set its "
+           "min_records to "
+           "0"},
   };
 }
 

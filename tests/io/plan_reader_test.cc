@@ -1,6 +1,8 @@
 // Plan reader: parsed values and defaults, every rejected input with its
 // exact message, the site-model reference, and the shipped demo plan. The
 // capture_matrix section has its own tests (capture_matrix_reader_test.cc).
+#include "planner/plan_reader.h"
+
 #include <gtest/gtest.h>
 #include <unistd.h>
 
@@ -10,7 +12,6 @@
 #include <vector>
 
 #include "io/reader_test_util.h"
-#include "planner/plan_reader.h"
 
 namespace planner {
 namespace {
@@ -120,22 +121,28 @@ const std::string kPlanFields =
 const std::string kTurbineFields =
     "valid fields: name, rated_power_kw, rotor_diameter_m, hub_height_m, cut_in_ms, "
     "rated_ms, cut_out_ms, restart_ms";
-const std::string kRestartRule = "must be above cut_in_ms (3) and at most cut_out_ms (25)";
+const std::string kRestartRule =
+    "must be above cut_in_ms (3) and at most cut_out_ms (25)";
 
 std::vector<BadPlan> BadPlans() {
   const std::string& b = kBasePlan;
   return {
+      // The '{' on line 3 is never closed; yaml-cpp notices at the ':' after
+      // "turbine" on line 4 (the text after "invalid YAML:" is its own).
       {"syntax error", Replace(b, "2028-03-01}", "2028-03-01"),
-       "plan.yaml:4:1: invalid YAML: end of map flow not found"},
+       "plan.yaml:4:8: invalid YAML: end of map flow not found"},
       {"unknown field, prefix", b + "quality_reject: 0.03\n",
        "plan.yaml:9:1: quality_reject: unknown field (did you mean "
-       "'quality_reject_fraction'?); " + kPlanFields},
+       "'quality_reject_fraction'?); " +
+           kPlanFields},
       {"unknown turbine field", Replace(b, "cut_in_ms: 3", "cut_in: 3"),
        "plan.yaml:4:21: turbine.cut_in: unknown field (did you mean 'cut_in_ms'?); " +
            kTurbineFields},
       {"duplicate key in a flow mapping", Replace(b, "name: T1,", "name: T1, name: T2,"),
-       "plan.yaml:4:21: turbine.name: given twice (first at line 4); give each field once"},
-      {"missing campaign", Replace(b, "campaign: {start: 2027-03-01, deadline: 2028-03-01}\n", ""),
+       "plan.yaml:4:21: turbine.name: given twice (first at line 4); give each field "
+       "once"},
+      {"missing campaign",
+       Replace(b, "campaign: {start: 2027-03-01, deadline: 2028-03-01}\n", ""),
        "plan.yaml:1:1: campaign: required field is missing"},
       {"missing capture matrix", b.substr(0, b.find("capture_matrix")),
        "plan.yaml:1:1: capture_matrix: required field is missing"},
@@ -146,33 +153,41 @@ std::vector<BadPlan> BadPlans() {
       {"cut-in equals cut-out", Replace(b, "cut_in_ms: 3", "cut_in_ms: 25"),
        "plan.yaml:4:32: turbine.cut_in_ms: 25 must be below cut_out_ms (25)"},
       {"negative cut-in", Replace(b, "cut_in_ms: 3", "cut_in_ms: -1"),
-       "plan.yaml:4:32: turbine.cut_in_ms: -1 is out of range; must be above 0 and at most "
+       "plan.yaml:4:32: turbine.cut_in_ms: -1 is out of range; must be above 0 and at "
+       "most "
        "50 m/s"},
       {"cut-in not a number", Replace(b, "cut_in_ms: 3", "cut_in_ms: abc"),
        "plan.yaml:4:32: turbine.cut_in_ms: expected a number, got 'abc'"},
       {"rated below cut-in", Replace(b, "rated_ms: 11", "rated_ms: 2"),
        "plan.yaml:4:45: turbine.rated_ms: 2 " + kRestartRule},
-      {"restart above cut-out", Replace(b, "cut_out_ms: 25}", "cut_out_ms: 25, restart_ms: 26}"),
+      {"restart above cut-out",
+       Replace(b, "cut_out_ms: 25}", "cut_out_ms: 25, restart_ms: 26}"),
        "plan.yaml:4:77: turbine.restart_ms: 26 " + kRestartRule},
-      {"restart at cut-in", Replace(b, "cut_out_ms: 25}", "cut_out_ms: 25, restart_ms: 3}"),
+      {"restart at cut-in",
+       Replace(b, "cut_out_ms: 25}", "cut_out_ms: 25, restart_ms: 3}"),
        "plan.yaml:4:77: turbine.restart_ms: 3 " + kRestartRule},
       {"default restart below cut-in",
-       Replace(Replace(b, "cut_out_ms: 25", "cut_out_ms: 5"), "rated_ms: 11", "rated_ms: 4"),
+       Replace(Replace(b, "cut_out_ms: 25", "cut_out_ms: 5"), "rated_ms: 11",
+               "rated_ms: 4"),
        "plan.yaml:4:10: turbine.restart_ms: the default cut_out_ms - 3 = 2 must be above "
        "cut_in_ms (3) and at most cut_out_ms (5)"},
       {"deadline equals start", Replace(b, "2028-03-01", "2027-03-01"),
-       "plan.yaml:3:41: campaign.deadline: 2027-03-01 is not after the start (2027-03-01); "
+       "plan.yaml:3:41: campaign.deadline: 2027-03-01 is not after the start "
+       "(2027-03-01); "
        "the deadline must be later"},
       {"deadline before start", Replace(b, "2028-03-01", "2026-12-24"),
-       "plan.yaml:3:41: campaign.deadline: 2026-12-24 is not after the start (2027-03-01); "
+       "plan.yaml:3:41: campaign.deadline: 2026-12-24 is not after the start "
+       "(2027-03-01); "
        "the deadline must be later"},
       {"impossible date", Replace(b, "2027-03-01", "2027-02-30"),
        "plan.yaml:3:19: campaign.start: 2027-02-30 is not a valid date; expected "
        "YYYY-MM-DD, a real calendar date"},
       {"date as a list", Replace(b, "start: 2027-03-01", "start: [2027, 3, 1]"),
-       "plan.yaml:3:19: campaign.start: expected a date YYYY-MM-DD, got a list of 3 items"},
+       "plan.yaml:3:19: campaign.start: expected a date YYYY-MM-DD, got a list of 3 "
+       "items"},
       // 2027-03-01 to 2028-03-01 is 366 days (2028 is a leap year): 52.3 weeks.
-      {"horizon before deadline", Replace(b, "2028-03-01}", "2028-03-01, horizon_weeks: 40}"),
+      {"horizon before deadline",
+       Replace(b, "2028-03-01}", "2028-03-01, horizon_weeks: 40}"),
        "plan.yaml:3:68: campaign.horizon_weeks: 40 weeks end before the deadline (52.3 "
        "weeks after the start); must be at least 53"},
       // 2027-03-01 to 2031-01-01 is 366 + 365 + 365 + 306 = 1402 days: 200.3 weeks.
@@ -182,34 +197,44 @@ std::vector<BadPlan> BadPlans() {
       {"fractional horizon", Replace(b, "2028-03-01}", "2028-03-01, horizon_weeks: 2.5}"),
        "plan.yaml:3:68: campaign.horizon_weeks: expected a whole number, got '2.5'"},
       {"zero horizon", Replace(b, "2028-03-01}", "2028-03-01, horizon_weeks: 0}"),
-       "plan.yaml:3:68: campaign.horizon_weeks: 0 is out of range; must be at least 1 and at "
+       "plan.yaml:3:68: campaign.horizon_weeks: 0 is out of range; must be at least 1 "
+       "and at "
        "most 1040 weeks"},
       {"angle above 360", b + "valid_sectors_deg: [[300, 400]]\n",
-       "plan.yaml:9:27: valid_sectors_deg[0][1]: 400 is out of range; must be at least 0 and "
+       "plan.yaml:9:27: valid_sectors_deg[0][1]: 400 is out of range; must be at least 0 "
+       "and "
        "at most 360 degrees"},
       {"sector starting at 360", b + "valid_sectors_deg: [[360, 20]]\n",
-       "plan.yaml:9:22: valid_sectors_deg[0][0]: 360 is out of range; must be at least 0 and "
+       "plan.yaml:9:22: valid_sectors_deg[0][0]: 360 is out of range; must be at least 0 "
+       "and "
        "below 360 degrees"},
       {"negative angle", b + "valid_sectors_deg: [[-10, 20]]\n",
-       "plan.yaml:9:22: valid_sectors_deg[0][0]: -10 is out of range; must be at least 0 and "
+       "plan.yaml:9:22: valid_sectors_deg[0][0]: -10 is out of range; must be at least 0 "
+       "and "
        "below 360 degrees"},
       {"empty sector", b + "valid_sectors_deg: [[40, 40]]\n",
        "plan.yaml:9:21: valid_sectors_deg[0]: [40, 40] is an empty sector; a sector runs "
-       "clockwise from the first angle to the second (write [0, 360] for the full circle)"},
+       "clockwise from the first angle to the second (write [0, 360] for the full "
+       "circle)"},
       {"no sectors", b + "valid_sectors_deg: []\n",
-       "plan.yaml:9:20: valid_sectors_deg: is empty; give at least one [from, to] sector, or "
+       "plan.yaml:9:20: valid_sectors_deg: is empty; give at least one [from, to] "
+       "sector, or "
        "leave the field out for the full circle"},
       {"sector of three angles", b + "valid_sectors_deg: [[10, 20, 30]]\n",
-       "plan.yaml:9:21: valid_sectors_deg[0]: expected a pair [from, to], got a list of 3 "
+       "plan.yaml:9:21: valid_sectors_deg[0]: expected a pair [from, to], got a list of "
+       "3 "
        "items"},
       {"quality fraction of 1", b + "quality_reject_fraction: 1\n",
-       "plan.yaml:9:26: quality_reject_fraction: 1 is out of range; must be at least 0 and "
+       "plan.yaml:9:26: quality_reject_fraction: 1 is out of range; must be at least 0 "
+       "and "
        "below 1"},
       {"negative MTBF", b + "outages: {turbine: {mtbf_h: -1, mttr_h: 36}}\n",
-       "plan.yaml:9:29: outages.turbine.mtbf_h: -1 is out of range; must be at least 0 and at "
+       "plan.yaml:9:29: outages.turbine.mtbf_h: -1 is out of range; must be at least 0 "
+       "and at "
        "most 1000000 h"},
       {"no repair time", b + "outages: {data_acquisition: {mtbf_h: 900, mttr_h: 0}}\n",
-       "plan.yaml:9:51: outages.data_acquisition.mttr_h: 0 must be above 0 when mtbf_h is "
+       "plan.yaml:9:51: outages.data_acquisition.mttr_h: 0 must be above 0 when mtbf_h "
+       "is "
        "above 0 (a repair takes time); set mtbf_h to 0 for no outages"},
       {"yes is not a boolean", b + "outages: {parked_counts_during_outage: yes}\n",
        "plan.yaml:9:40: outages.parked_counts_during_outage: expected true or false, got "
@@ -232,11 +257,13 @@ TEST(PlanReaderTest, MissingPlanFileIsNamed) {
 }
 
 TEST(PlanReaderTest, MissingSiteModelIsReportedWhereThePlanNamesIt) {
-  const std::string text = Replace(kBasePlan, "coastal-ridge.yaml", "../nowhere/site.yaml");
-  EXPECT_EQ(PlanError(text),
-            "plan.yaml:2:13: site_model: '../nowhere/site.yaml' is not a file (looked for '" +
-                SourcePath("nowhere/site.yaml") +
-                "'); give a path relative to the plan's folder");
+  const std::string text =
+      Replace(kBasePlan, "coastal-ridge.yaml", "../nowhere/site.yaml");
+  EXPECT_EQ(
+      PlanError(text),
+      "plan.yaml:2:13: site_model: '../nowhere/site.yaml' is not a file (looked for '" +
+          SourcePath("nowhere/site.yaml") +
+          "'); give a path relative to the plan's folder");
 }
 
 // A scratch folder holding a plan and a faulty site model next to it.
@@ -264,11 +291,12 @@ class PlanFolder {
 TEST(PlanReaderTest, ErrorsInTheSiteModelNameTheSiteFile) {
   PlanFolder folder;
   const std::string site = folder.Write("bad-site.yaml", "name: x\nsectors: []\n");
-  const std::string plan =
-      folder.Write("plan.yaml", Replace(kBasePlan, "coastal-ridge.yaml", "bad-site.yaml"));
+  const std::string plan = folder.Write(
+      "plan.yaml", Replace(kBasePlan, "coastal-ridge.yaml", "bad-site.yaml"));
   EXPECT_EQ(ErrorOf([&] { LoadPlan(plan); }),
-            site + ":2:10: sectors: is empty; give one entry per direction sector, the "
-                   "first centred on north");
+            site +
+                ":2:10: sectors: is empty; give one entry per direction sector, the "
+                "first centred on north");
 }
 
 TEST(PlanReaderTest, LoadPlanResolvesTheSiteNextToThePlan) {

@@ -89,7 +89,8 @@ TEST(SiteModelReaderTest, MonthlyFactorsAreNormalisedToADayWeightedMeanOfOne) {
 TEST(SiteModelReaderTest, HourlyFactorsAreNormalisedToAMeanOfOne) {
   std::string list = "[3";
   for (int h = 1; h < 24; ++h) list += ", 1";
-  const SiteModel site = ParseSiteModel(kBaseSite + "hourly_factors: " + list + "]\n", kFile);
+  const SiteModel site =
+      ParseSiteModel(kBaseSite + "hourly_factors: " + list + "]\n", kFile);
   EXPECT_NEAR(site.hourly_factors[0], 3.0 * 24.0 / 26.0, 1e-12);
   EXPECT_NEAR(site.hourly_factors[23], 24.0 / 26.0, 1e-12);
 }
@@ -105,19 +106,21 @@ TEST(SiteModelReaderTest, TurbulenceClassSetsPublishedReferenceIntensity) {
 }
 
 TEST(SiteModelReaderTest, ReadsReferenceIntensityAndPersistence) {
-  const std::string text = Replace(kBaseSite, "class: A", "i_ref: 0.13, persistence_h: 2");
+  const std::string text =
+      Replace(kBaseSite, "class: A", "i_ref: 0.13, persistence_h: 2");
   const SiteModel site = ParseSiteModel(text, kFile);
   EXPECT_DOUBLE_EQ(site.turbulence.i_ref, 0.13);
   EXPECT_DOUBLE_EQ(site.turbulence.persistence_h, 2.0);
 }
 
 TEST(SiteModelReaderTest, ReadsTiTableInPercentAsFractions) {
-  const std::string text = Replace(kBaseSite, "turbulence: {model: iec-ntm, class: A}\n",
-                                   "turbulence:\n"
-                                   "  model: table\n"
-                                   "  rows:\n"
-                                   "    - {wind_ms: [0, 5], ti_mean_pct: 15, ti_std_pct: 5}\n"
-                                   "    - {wind_ms: [6, 30], ti_mean_pct: 9.5, ti_std_pct: 2}\n");
+  const std::string text =
+      Replace(kBaseSite, "turbulence: {model: iec-ntm, class: A}\n",
+              "turbulence:\n"
+              "  model: table\n"
+              "  rows:\n"
+              "    - {wind_ms: [0, 5], ti_mean_pct: 15, ti_std_pct: 5}\n"
+              "    - {wind_ms: [6, 30], ti_mean_pct: 9.5, ti_std_pct: 2}\n");
   const TurbulenceModel model = ParseSiteModel(text, kFile).turbulence;
   EXPECT_EQ(model.kind, TurbulenceModel::Kind::kTable);
   ASSERT_EQ(model.table.size(), 2u);
@@ -144,18 +147,24 @@ std::vector<BadSite> BadSites() {
   const std::string table =
       "turbulence:\n  model: table\n  rows:\n"
       "    - {wind_ms: [4, 6], ti_mean_pct: 12, ti_std_pct: 3}\n";
-  const std::string with_table = Replace(b, "turbulence: {model: iec-ntm, class: A}\n", table);
+  const std::string with_table =
+      Replace(b, "turbulence: {model: iec-ntm, class: A}\n", table);
   return {
-      {"syntax error", Replace(b, "{frequency: 0.5, weibull_a_ms: 9", "[frequency: 0.5, x: 9"),
-       "site.yaml:5:1: invalid YAML: end of sequence flow not found"},
+      // The '}' at line 4, column 42 closes a '['; the text after "invalid
+      // YAML:" is yaml-cpp's own.
+      {"syntax error",
+       Replace(b, "{frequency: 0.5, weibull_a_ms: 9", "[frequency: 0.5, x: 9"),
+       "site.yaml:4:42: invalid YAML: illegal flow end"},
       {"root not a mapping", "just text\n",
        "site.yaml:1:1: expected a mapping, got 'just text'; " + kValidFields},
-      {"empty document", "", "site.yaml: expected a mapping, got nothing; " + kValidFields},
+      {"empty document", "",
+       "site.yaml: expected a mapping, got nothing; " + kValidFields},
       {"second document", b + "---\nname: other\n",
        "site.yaml:7:1: a second YAML document starts here; a file holds exactly one"},
       {"unknown key", b + "windpersistence_h: 30\n",
        "site.yaml:6:1: windpersistence_h: unknown field (did you mean "
-       "'wind_persistence_h'?); " + kValidFields},
+       "'wind_persistence_h'?); " +
+           kValidFields},
       {"duplicate key", b + "name: Other\n",
        "site.yaml:6:1: name: given twice (first at line 1); give each field once"},
       {"missing name", Replace(b, "name: Test site\n", ""),
@@ -164,10 +173,12 @@ std::vector<BadSite> BadSites() {
        "site.yaml:1:7: name: is empty; give a name (shown in reports)"},
       {"missing turbulence", Replace(b, "turbulence: {model: iec-ntm, class: A}\n", ""),
        "site.yaml:1:1: turbulence: required field is missing"},
-      {"sectors not a list", "name: x\nsectors: 5\nturbulence: {model: iec-ntm, class: A}\n",
+      {"sectors not a list",
+       "name: x\nsectors: 5\nturbulence: {model: iec-ntm, class: A}\n",
        "site.yaml:2:10: sectors: expected a list, got '5'"},
       {"empty sectors", "name: x\nsectors: []\nturbulence: {model: iec-ntm, class: A}\n",
-       "site.yaml:2:10: sectors: is empty; give one entry per direction sector, the first "
+       "site.yaml:2:10: sectors: is empty; give one entry per direction sector, the "
+       "first "
        "centred on north"},
       {"sector field misspelt", Replace(b, "weibull_a_ms: 8", "weibull_a: 8"),
        "site.yaml:3:22: sectors[0].weibull_a: unknown field (did you mean "
@@ -187,28 +198,33 @@ std::vector<BadSite> BadSites() {
        "most 20"},
       {"missing weibull k", Replace(b, ", weibull_k: 2}", "}"),
        "site.yaml:3:5: sectors[0].weibull_k: required field is missing"},
-      {"negative frequency", Replace(b, "frequency: 0.5, weibull_a_ms: 8",
-                                     "frequency: -0.5, weibull_a_ms: 8"),
-       "site.yaml:3:17: sectors[0].frequency: -0.5 is out of range; must be above 0 and at "
+      {"negative frequency",
+       Replace(b, "frequency: 0.5, weibull_a_ms: 8", "frequency: -0.5, weibull_a_ms: 8"),
+       "site.yaml:3:17: sectors[0].frequency: -0.5 is out of range; must be above 0 and "
+       "at "
        "most 1"},
-      {"frequencies do not sum to 1", Replace(b, "frequency: 0.5, weibull_a_ms: 9",
-                                              "frequency: 0.4, weibull_a_ms: 9"),
+      {"frequencies do not sum to 1",
+       Replace(b, "frequency: 0.5, weibull_a_ms: 9", "frequency: 0.4, weibull_a_ms: 9"),
        "site.yaml:3:3: sectors: frequencies sum to 0.9; they must sum to 1 (within "
        "0.005)"},
       {"persistence of 1", b + "sector_persistence: 1\n",
        "site.yaml:6:21: sector_persistence: 1 is out of range; must be at least 0 and "
        "below 1"},
       {"negative wind persistence", b + "wind_persistence_h: -5\n",
-       "site.yaml:6:21: wind_persistence_h: -5 is out of range; must be at least 0 and at "
+       "site.yaml:6:21: wind_persistence_h: -5 is out of range; must be at least 0 and "
+       "at "
        "most 8760 h"},
       {"interannual too large", b + "interannual_std: 0.6\n",
        "site.yaml:6:18: interannual_std: 0.6 is out of range; must be at least 0 and at "
        "most 0.5"},
-      {"eleven monthly factors", b + "monthly_factors: [1, 1, 1, 1, 1, 1, 1, 1, 1, 1, 1]\n",
+      {"eleven monthly factors",
+       b + "monthly_factors: [1, 1, 1, 1, 1, 1, 1, 1, 1, 1, 1]\n",
        "site.yaml:6:18: monthly_factors: 11 values given; expected 12 (January to "
        "December)"},
-      {"zero monthly factor", b + "monthly_factors: [1, 1, 1, 1, 1, 0, 1, 1, 1, 1, 1, 1]\n",
-       "site.yaml:6:34: monthly_factors[5]: 0 is out of range; must be above 0 and at most "
+      {"zero monthly factor",
+       b + "monthly_factors: [1, 1, 1, 1, 1, 0, 1, 1, 1, 1, 1, 1]\n",
+       "site.yaml:6:34: monthly_factors[5]: 0 is out of range; must be above 0 and at "
+       "most "
        "10"},
       {"monthly factors not a list", b + "monthly_factors: 1\n",
        "site.yaml:6:18: monthly_factors: expected a list, got '1'"},
@@ -221,35 +237,44 @@ std::vector<BadSite> BadSites() {
        "site.yaml:5:37: turbulence.class: 'D' is not an IEC 61400-1 turbulence class; "
        "valid: A+, A, B, C"},
       {"class and i_ref", Replace(b, "class: A", "class: A, i_ref: 0.1"),
-       "site.yaml:5:47: turbulence.i_ref: given together with class; give either class or "
+       "site.yaml:5:47: turbulence.i_ref: given together with class; give either class "
+       "or "
        "i_ref"},
       {"neither class nor i_ref", Replace(b, ", class: A", ""),
-       "site.yaml:5:13: turbulence: gives neither class nor i_ref; give one (class: A+, A, "
+       "site.yaml:5:13: turbulence: gives neither class nor i_ref; give one (class: A+, "
+       "A, "
        "B or C; or i_ref in (0, 0.5])"},
       {"i_ref too large", Replace(b, "class: A", "i_ref: 0.6"),
-       "site.yaml:5:37: turbulence.i_ref: 0.6 is out of range; must be above 0 and at most "
+       "site.yaml:5:37: turbulence.i_ref: 0.6 is out of range; must be above 0 and at "
+       "most "
        "0.5"},
       {"rows with the NTM", Replace(b, "class: A", "class: A, rows: []"),
-       "site.yaml:5:40: turbulence.rows: unknown field for model 'iec-ntm'; valid fields: "
+       "site.yaml:5:40: turbulence.rows: unknown field for model 'iec-ntm'; valid "
+       "fields: "
        "model, class, i_ref, persistence_h"},
       {"negative TI persistence", Replace(b, "class: A", "class: A, persistence_h: -1"),
        "site.yaml:5:55: turbulence.persistence_h: -1 is out of range; must be at least 0 "
        "and at most 8760 h"},
-      {"class with a table", Replace(with_table, "  model: table\n", "  model: table\n  class: A\n"),
+      {"class with a table",
+       Replace(with_table, "  model: table\n", "  model: table\n  class: A\n"),
        "site.yaml:7:3: turbulence.class: unknown field for model 'table'; valid fields: "
        "model, rows, persistence_h"},
-      {"table without rows", Replace(with_table, "  rows:\n    - {wind_ms: [4, 6], "
-                                                 "ti_mean_pct: 12, ti_std_pct: 3}\n", ""),
+      {"table without rows",
+       Replace(with_table,
+               "  rows:\n    - {wind_ms: [4, 6], "
+               "ti_mean_pct: 12, ti_std_pct: 3}\n",
+               ""),
        "site.yaml:6:3: turbulence.rows: required field is missing"},
       {"empty table row bin", Replace(with_table, "[4, 6]", "[6, 6]"),
        "site.yaml:8:17: turbulence.rows[0].wind_ms: [6, 6] is an empty bin; lo must be "
        "below hi"},
-      {"table rows overlap", with_table +
-                                 "    - {wind_ms: [5, 8], ti_mean_pct: 10, ti_std_pct: 3}\n",
+      {"table rows overlap",
+       with_table + "    - {wind_ms: [5, 8], ti_mean_pct: 10, ti_std_pct: 3}\n",
        "site.yaml:9:17: turbulence.rows[1].wind_ms: [5, 8] overlaps or comes before the "
        "previous row [4, 6]; rows must be sorted by wind speed and must not overlap"},
       {"table TI mean zero", Replace(with_table, "ti_mean_pct: 12", "ti_mean_pct: 0"),
-       "site.yaml:8:38: turbulence.rows[0].ti_mean_pct: 0 is out of range; must be above 0 "
+       "site.yaml:8:38: turbulence.rows[0].ti_mean_pct: 0 is out of range; must be above "
+       "0 "
        "and at most 100 %"},
       {"table wind as number", Replace(with_table, "[4, 6]", "4"),
        "site.yaml:8:17: turbulence.rows[0].wind_ms: expected a pair [lo, hi], got '4'"},
@@ -280,7 +305,8 @@ TEST(SiteModelReaderTest, ErrorsInAFileNameThatFile) {
 double MixtureMean(const SiteModel& site) {
   double mean = 0.0;
   for (const Sector& s : site.sectors) {
-    const boost::math::weibull_distribution<double> w(s.weibull.shape, s.weibull.scale_ms);
+    const boost::math::weibull_distribution<double> w(s.weibull.shape,
+                                                      s.weibull.scale_ms);
     mean += s.frequency * boost::math::mean(w);
   }
   return mean;

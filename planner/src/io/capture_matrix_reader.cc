@@ -11,8 +11,8 @@ namespace io {
 namespace {
 
 const std::vector<std::string> kMatrixFields = {"production", "parked"};
-const std::vector<std::string> kStateFields = {"wind_bins_ms", "ti_bins_pct", "min_records",
-                                               "overrides"};
+const std::vector<std::string> kStateFields = {"wind_bins_ms", "ti_bins_pct",
+                                               "min_records", "overrides"};
 const std::vector<std::string> kRangeFields = {"from", "to", "width"};
 const std::vector<std::string> kOverrideFields = {"wind_ms", "ti_pct", "min_records",
                                                   "optional"};
@@ -42,7 +42,8 @@ std::vector<Bin> BinsFromRange(const Field& f, const std::string& unit) {
   const double to = ReadNumber(m, "to", NonNegative(unit));
   const double width = ReadNumber(m, "width", Interval("()", 0, kInfinity, unit));
   if (to <= from) {
-    Fail(m.Get("to"), Text(m.Get("to")) + " must be above from (" + FormatNumber(from) + ")");
+    Fail(m.Get("to"),
+         Text(m.Get("to")) + " must be above from (" + FormatNumber(from) + ")");
   }
   const double count = (to - from) / width;
   const double whole = std::round(count);
@@ -52,7 +53,8 @@ std::vector<Bin> BinsFromRange(const Field& f, const std::string& unit) {
   }
   if (whole > kMaxBins) {
     Fail(m.Get("width"), Text(m.Get("width")) + " gives " + FormatNumber(whole) +
-                             " bins; at most " + std::to_string(kMaxBins) + " are allowed");
+                             " bins; at most " + std::to_string(kMaxBins) +
+                             " are allowed");
   }
   const int n = static_cast<int>(whole);
   std::vector<Bin> bins;
@@ -85,7 +87,8 @@ std::vector<Bin> BinsFromPairs(const std::vector<Field>& items, const std::strin
   for (const Field& item : items) {
     const auto [lo, hi] = AsPair(item);
     const Bin bin{AsNumber(lo, NonNegative(unit)), AsNumber(hi, NonNegative(unit))};
-    if (bin.hi <= bin.lo) Fail(item, PairText(item) + " is an empty bin; lo must be below hi");
+    if (bin.hi <= bin.lo)
+      Fail(item, PairText(item) + " is an empty bin; lo must be below hi");
     if (!bins.empty() && bin.lo < bins.back().hi) {
       Fail(item, PairText(item) + " overlaps or comes before the previous bin (" +
                      BinText(bins.back(), unit) +
@@ -109,7 +112,8 @@ std::vector<Bin> ReadBins(const Field& f, const std::string& unit) {
       Fail(item, "mixes edges and [lo, hi] pairs in one list; " + std::string(kBinForms));
     }
   }
-  std::vector<Bin> bins = pairs ? BinsFromPairs(items, unit) : BinsFromEdges(f, items, unit);
+  std::vector<Bin> bins =
+      pairs ? BinsFromPairs(items, unit) : BinsFromEdges(f, items, unit);
   if (bins.size() > kMaxBins) {
     Fail(f, std::to_string(bins.size()) + " bins given; at most " +
                 std::to_string(kMaxBins) + " are allowed");
@@ -177,7 +181,8 @@ void ApplyOverride(const Field& f, const StateGrid& grid, GridTargets* targets) 
   }
   const std::optional<Field> records = m.Find("min_records");
   const std::optional<Field> optional = m.Find("optional");
-  const int required = records ? AsWholeNumber(*records, Interval("[]", 0, kMaxRecords)) : 0;
+  const int required =
+      records ? AsWholeNumber(*records, Interval("[]", 0, kMaxRecords)) : 0;
   const bool is_optional = optional ? AsBool(*optional) : false;
   for (std::size_t w : winds) {
     for (std::size_t t : tis) {
@@ -265,12 +270,14 @@ CaptureMatrix ReadCaptureMatrix(const Field& f, const TurbineSpec& turbine) {
   if (const auto p = m.Find("production")) {
     ReadState(*p, OperatingState::kProduction, turbine, &matrix);
   }
-  if (const auto p = m.Find("parked")) ReadState(*p, OperatingState::kParked, turbine, &matrix);
+  if (const auto p = m.Find("parked"))
+    ReadState(*p, OperatingState::kParked, turbine, &matrix);
   const bool any_required = std::any_of(matrix.cells.begin(), matrix.cells.end(),
                                         [](const Cell& c) { return !c.optional; });
   if (!any_required) {
-    Fail(f, "has no required cell: every cell is optional or has min_records 0; at "
-            "least one cell must hold up completion");
+    Fail(f,
+         "has no required cell: every cell is optional or has min_records 0; at "
+         "least one cell must hold up completion");
   }
   return matrix;
 }

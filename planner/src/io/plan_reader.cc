@@ -3,7 +3,9 @@
 #include "planner/plan_reader.h"
 
 #include <cmath>
+#include <cstdint>
 #include <filesystem>
+#include <optional>
 #include <string>
 #include <vector>
 
@@ -19,13 +21,18 @@ using io::FieldMap;
 using io::Interval;
 using io::kInfinity;
 
-const std::vector<std::string> kPlanFields = {
-    "name",     "site_model",        "campaign", "turbine", "valid_sectors_deg",
-    "outages",  "quality_reject_fraction",       "capture_matrix"};
+const std::vector<std::string> kPlanFields = {"name",
+                                              "site_model",
+                                              "campaign",
+                                              "turbine",
+                                              "valid_sectors_deg",
+                                              "outages",
+                                              "quality_reject_fraction",
+                                              "capture_matrix"};
 const std::vector<std::string> kCampaignFields = {"start", "deadline", "horizon_weeks"};
 const std::vector<std::string> kTurbineFields = {
-    "name",       "rated_power_kw", "rotor_diameter_m", "hub_height_m",
-    "cut_in_ms",  "rated_ms",       "cut_out_ms",       "restart_ms"};
+    "name",      "rated_power_kw", "rotor_diameter_m", "hub_height_m",
+    "cut_in_ms", "rated_ms",       "cut_out_ms",       "restart_ms"};
 const std::vector<std::string> kOutagesFields = {"turbine", "data_acquisition",
                                                  "parked_counts_during_outage"};
 const std::vector<std::string> kOutageModelFields = {"mtbf_h", "mttr_h"};
@@ -56,10 +63,12 @@ void ReadCampaign(const Field& f, Plan* plan) {
     const int64_t needed = (deadline_days + 6) / 7;
     const std::optional<Field> given = m.Find("horizon_weeks");
     const std::string what = given ? io::Text(*given) : "the default 156";
-    const Field at = given ? *given : Field{YAML::Node(), m.PathOf("horizon_weeks"), f.where};
+    const Field at =
+        given ? *given : Field{YAML::Node(), m.PathOf("horizon_weeks"), f.where};
     io::Fail(at, what + " weeks end before the deadline (" +
                      io::FormatNumber(std::round(deadline_days / 0.7) / 10.0) +
-                     " weeks after the start); must be at least " + std::to_string(needed));
+                     " weeks after the start); must be at least " +
+                     std::to_string(needed));
   }
 }
 
@@ -71,7 +80,8 @@ void ReadRestart(const FieldMap& m, TurbineSpec* t) {
                     : t->cut_out_ms - kDefaultRestartMarginMs;
   if (t->restart_ms > t->cut_in_ms && t->restart_ms <= t->cut_out_ms) return;
   const std::string what =
-      f ? io::Text(*f) : "the default cut_out_ms - 3 = " + io::FormatNumber(t->restart_ms);
+      f ? io::Text(*f)
+        : "the default cut_out_ms - 3 = " + io::FormatNumber(t->restart_ms);
   io::Fail(at, what + " must be above " + Named("cut_in_ms", t->cut_in_ms) +
                    " and at most " + Named("cut_out_ms", t->cut_out_ms));
 }
@@ -81,8 +91,10 @@ TurbineSpec ReadTurbine(const Field& f) {
   const io::Limits speed = Interval("(]", 0, kMaxWindSpeedMs, "m/s");
   TurbineSpec t;
   t.name = io::ReadName(m, "name");
-  t.rated_power_kw = io::ReadNumber(m, "rated_power_kw", Interval("(]", 0, 1e6, "kW"), 0.0);
-  t.rotor_diameter_m = io::ReadNumber(m, "rotor_diameter_m", Interval("(]", 0, 500, "m"), 0.0);
+  t.rated_power_kw =
+      io::ReadNumber(m, "rated_power_kw", Interval("(]", 0, 1e6, "kW"), 0.0);
+  t.rotor_diameter_m =
+      io::ReadNumber(m, "rotor_diameter_m", Interval("(]", 0, 500, "m"), 0.0);
   t.hub_height_m = io::ReadNumber(m, "hub_height_m", Interval("(]", 0, 500, "m"), 0.0);
   t.cut_in_ms = io::ReadNumber(m, "cut_in_ms", speed);
   t.cut_out_ms = io::ReadNumber(m, "cut_out_ms", speed);
@@ -93,8 +105,9 @@ TurbineSpec ReadTurbine(const Field& f) {
   const Field rated = m.Get("rated_ms");
   t.rated_ms = io::AsNumber(rated, speed);
   if (t.rated_ms <= t.cut_in_ms || t.rated_ms > t.cut_out_ms) {
-    io::Fail(rated, io::Text(rated) + " must be above " + Named("cut_in_ms", t.cut_in_ms) +
-                        " and at most " + Named("cut_out_ms", t.cut_out_ms));
+    io::Fail(rated, io::Text(rated) + " must be above " +
+                        Named("cut_in_ms", t.cut_in_ms) + " and at most " +
+                        Named("cut_out_ms", t.cut_out_ms));
   }
   ReadRestart(m, &t);
   return t;
@@ -106,9 +119,10 @@ AngleRange ReadAngleRange(const Field& f) {
   range.from_deg = io::AsNumber(from, Interval("[)", 0, 360, "degrees"));
   range.to_deg = io::AsNumber(to, Interval("[]", 0, 360, "degrees"));
   if (range.from_deg == range.to_deg) {
-    io::Fail(f, io::PairText(f) + " is an empty sector; a sector runs clockwise from the "
-                                  "first angle to the second (write [0, 360] for the full "
-                                  "circle)");
+    io::Fail(f, io::PairText(f) +
+                    " is an empty sector; a sector runs clockwise from the "
+                    "first angle to the second (write [0, 360] for the full "
+                    "circle)");
   }
   return range;
 }
@@ -116,8 +130,9 @@ AngleRange ReadAngleRange(const Field& f) {
 std::vector<AngleRange> ReadValidSectors(const Field& f) {
   const std::vector<Field> items = io::AsList(f);
   if (items.empty()) {
-    io::Fail(f, "is empty; give at least one [from, to] sector, or leave the field out "
-                "for the full circle");
+    io::Fail(f,
+             "is empty; give at least one [from, to] sector, or leave the field out "
+             "for the full circle");
   }
   std::vector<AngleRange> sectors;
   for (const Field& item : items) sectors.push_back(ReadAngleRange(item));
@@ -131,8 +146,9 @@ OutageModel ReadOutageModel(const Field& f) {
   const Field mttr = m.Get("mttr_h");
   model.mttr_h = io::AsNumber(mttr, Interval("[]", 0, 1e5, "h"));
   if (model.mtbf_h > 0.0 && model.mttr_h == 0.0) {
-    io::Fail(mttr, io::Text(mttr) + " must be above 0 when mtbf_h is above 0 (a repair "
-                                    "takes time); set mtbf_h to 0 for no outages");
+    io::Fail(mttr, io::Text(mttr) +
+                       " must be above 0 when mtbf_h is above 0 (a repair "
+                       "takes time); set mtbf_h to 0 for no outages");
   }
   return model;
 }
@@ -141,15 +157,17 @@ void ReadOutages(const Field& f, Plan* plan) {
   const FieldMap m(f, kOutagesFields);
   if (const auto t = m.Find("turbine")) plan->turbine_outages = ReadOutageModel(*t);
   if (const auto d = m.Find("data_acquisition")) plan->daq_outages = ReadOutageModel(*d);
-  plan->parked_counts_during_outage = io::ReadBool(m, "parked_counts_during_outage", false);
+  plan->parked_counts_during_outage =
+      io::ReadBool(m, "parked_counts_during_outage", false);
 }
 
 // The site model path is relative to the plan's folder.
 void ReadSite(const Field& f, const std::string& base_dir, Plan* plan) {
   const std::string given = io::AsText(f);
   if (given.empty()) io::Fail(f, "is empty; give the path of a site model file");
-  const fs::path resolved =
-      base_dir.empty() ? fs::path(given) : (fs::path(base_dir) / given).lexically_normal();
+  const fs::path resolved = base_dir.empty()
+                                ? fs::path(given)
+                                : (fs::path(base_dir) / given).lexically_normal();
   std::error_code ec;
   if (!fs::is_regular_file(resolved, ec)) {
     io::Fail(f, "'" + given + "' is not a file (looked for '" + resolved.string() +
@@ -169,7 +187,9 @@ Plan ParsePlan(const std::string& yaml_text, const std::string& file_name,
   plan.source_file = file_name;
   ReadCampaign(m.Get("campaign"), &plan);
   plan.turbine = ReadTurbine(m.Get("turbine"));
-  if (const auto f = m.Find("valid_sectors_deg")) plan.valid_sectors = ReadValidSectors(*f);
+  if (const auto f = m.Find("valid_sectors_deg")) {
+    plan.valid_sectors = ReadValidSectors(*f);
+  }
   if (const auto f = m.Find("outages")) ReadOutages(*f, &plan);
   plan.quality_reject_fraction =
       io::ReadNumber(m, "quality_reject_fraction", Interval("[)", 0, 1), 0.0);

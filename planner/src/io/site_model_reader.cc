@@ -1,5 +1,6 @@
 // Reading site models (docs/site-model.md).
 #include <cmath>
+#include <optional>
 #include <string>
 #include <vector>
 
@@ -16,10 +17,15 @@ using io::FieldMap;
 using io::Interval;
 using io::kInfinity;
 
-const std::vector<std::string> kSiteFields = {
-    "name",           "description",     "sectors",
-    "sector_persistence", "wind_persistence_h", "monthly_factors",
-    "hourly_factors", "interannual_std", "turbulence"};
+const std::vector<std::string> kSiteFields = {"name",
+                                              "description",
+                                              "sectors",
+                                              "sector_persistence",
+                                              "wind_persistence_h",
+                                              "monthly_factors",
+                                              "hourly_factors",
+                                              "interannual_std",
+                                              "turbulence"};
 const std::vector<std::string> kSectorFields = {"frequency", "weibull_a_ms", "weibull_k"};
 const std::vector<std::string> kNtmFields = {"model", "class", "i_ref", "persistence_h"};
 const std::vector<std::string> kTableFields = {"model", "rows", "persistence_h"};
@@ -39,7 +45,8 @@ Sector ReadSector(const Field& f) {
   const FieldMap m(f, kSectorFields);
   Sector sector;
   sector.frequency = io::ReadNumber(m, "frequency", Interval("(]", 0, 1));
-  sector.weibull.scale_ms = io::ReadNumber(m, "weibull_a_ms", Interval("(]", 0, 30, "m/s"));
+  sector.weibull.scale_ms =
+      io::ReadNumber(m, "weibull_a_ms", Interval("(]", 0, 30, "m/s"));
   sector.weibull.shape = io::ReadNumber(m, "weibull_k", Interval("(]", 0, 20));
   return sector;
 }
@@ -47,8 +54,9 @@ Sector ReadSector(const Field& f) {
 std::vector<Sector> ReadSectors(const Field& f) {
   const std::vector<Field> items = io::AsList(f);
   if (items.empty()) {
-    io::Fail(f, "is empty; give one entry per direction sector, the first centred on "
-                "north");
+    io::Fail(f,
+             "is empty; give one entry per direction sector, the first centred on "
+             "north");
   }
   if (items.size() > kMaxSectors) {
     io::Fail(f, std::to_string(items.size()) + " sectors given; at most " +
@@ -116,8 +124,9 @@ void ReadIecClass(const FieldMap& m, TurbulenceModel* model) {
                                  "B, C");
     }
   } else {
-    io::Fail(m.self(), "gives neither class nor i_ref; give one (class: A+, A, B or C; "
-                       "or i_ref in (0, 0.5])");
+    io::Fail(m.self(),
+             "gives neither class nor i_ref; give one (class: A+, A, B or C; "
+             "or i_ref in (0, 0.5])");
   }
 }
 
@@ -170,7 +179,10 @@ TurbulenceModel ReadTurbulence(const Field& f) {
   const std::string peeked = PeekModel(f);
   const bool is_ntm = peeked == "iec-ntm";
   const bool is_table = peeked == "table";
-  const FieldMap m(f, is_ntm ? kNtmFields : is_table ? kTableFields : kTurbulenceFields,
+  const FieldMap m(f,
+                   is_ntm     ? kNtmFields
+                   : is_table ? kTableFields
+                              : kTurbulenceFields,
                    is_ntm || is_table ? "for model '" + peeked + "'" : "");
   const Field model_field = m.Get("model");
   const std::string model_name = io::AsText(model_field);
@@ -185,8 +197,8 @@ TurbulenceModel ReadTurbulence(const Field& f) {
     io::Fail(model_field, io::Describe(model_field.node) +
                               " is not a turbulence model; valid: iec-ntm, table");
   }
-  model.persistence_h = io::ReadNumber(m, "persistence_h",
-                                       Interval("[]", 0, kMaxPersistenceH, "h"), 0.0);
+  model.persistence_h =
+      io::ReadNumber(m, "persistence_h", Interval("[]", 0, kMaxPersistenceH, "h"), 0.0);
   return model;
 }
 
@@ -200,11 +212,12 @@ SiteModel ParseSiteModel(const std::string& yaml_text, const std::string& file_n
   site.sectors = ReadSectors(m.Get("sectors"));
   site.sector_persistence =
       io::ReadNumber(m, "sector_persistence", Interval("[)", 0, 1), 0.97);
-  site.wind_persistence_h = io::ReadNumber(m, "wind_persistence_h",
-                                           Interval("[]", 0, kMaxPersistenceH, "h"), 36.0);
+  site.wind_persistence_h = io::ReadNumber(
+      m, "wind_persistence_h", Interval("[]", 0, kMaxPersistenceH, "h"), 36.0);
   if (const auto f = m.Find("monthly_factors")) ReadMonthlyFactors(*f, &site);
   if (const auto f = m.Find("hourly_factors")) ReadHourlyFactors(*f, &site);
-  site.interannual_std = io::ReadNumber(m, "interannual_std", Interval("[]", 0, 0.5), 0.0);
+  site.interannual_std =
+      io::ReadNumber(m, "interannual_std", Interval("[]", 0, 0.5), 0.0);
   site.turbulence = ReadTurbulence(m.Get("turbulence"));
   return site;
 }

@@ -1,6 +1,7 @@
 #include "io/yaml_fields.h"
 
 #include <algorithm>
+#include <cctype>
 #include <charconv>
 #include <cmath>
 #include <cstdio>
@@ -99,14 +100,16 @@ std::string NumberTypeError(const Field& f) {
 std::string ReadInputFile(const std::string& path, const std::string& what) {
   std::error_code ec;
   const SourceLocation where{path, 0, 0};
-  if (!fs::exists(path, ec)) ThrowAt(where, "", "cannot open " + what + " file: no such file");
+  if (!fs::exists(path, ec))
+    ThrowAt(where, "", "cannot open " + what + " file: no such file");
   if (fs::is_directory(path, ec)) {
     ThrowAt(where, "", "cannot open " + what + " file: it is a folder");
   }
   const std::uintmax_t size = fs::file_size(path, ec);
   if (!ec && size > kMaxInputBytes) {
-    ThrowAt(where, "", "is " + std::to_string(size) + " bytes; a " + what +
-                           " file is a small YAML text (at most 16 MiB)");
+    ThrowAt(where, "",
+            "is " + std::to_string(size) + " bytes; a " + what +
+                " file is a small YAML text (at most 16 MiB)");
   }
   std::ifstream in(path, std::ios::binary);
   if (!in) ThrowAt(where, "", "cannot open " + what + " file: not readable");
@@ -133,16 +136,23 @@ Field ParseDocument(const std::string& text, const std::string& file_name) {
   return root;
 }
 
-void Fail(const Field& f, const std::string& message) { ThrowAt(f.where, f.path, message); }
+void Fail(const Field& f, const std::string& message) {
+  ThrowAt(f.where, f.path, message);
+}
 
 std::string Describe(const YAML::Node& node) {
   if (!node.IsDefined() || node.IsNull()) return "nothing";
   if (node.IsSequence()) {
-    return "a list of " + std::to_string(node.size()) + (node.size() == 1 ? " item" : " items");
+    return "a list of " + std::to_string(node.size()) +
+           (node.size() == 1 ? " item" : " items");
   }
   if (node.IsMap()) return "a mapping";
   std::string text = node.Scalar();
   if (text.size() > kMaxQuotedChars) text = text.substr(0, kMaxQuotedChars) + "...";
+  // Keep messages on one line and free of control characters.
+  for (char& c : text) {
+    if (static_cast<unsigned char>(c) < 0x20 || c == 0x7f) c = '?';
+  }
   return "'" + text + "'";
 }
 
@@ -185,11 +195,12 @@ FieldMap::FieldMap(const Field& map, const std::vector<std::string>& allowed,
     }
     for (std::size_t i = 0; i < entries_.size(); ++i) {
       if (entries_[i].first != key) continue;
-      ThrowAt(key_where, path, "given twice (first at line " +
-                                   std::to_string(key_lines[i]) +
-                                   "); give each field once");
+      ThrowAt(key_where, path,
+              "given twice (first at line " + std::to_string(key_lines[i]) +
+                  "); give each field once");
     }
-    entries_.emplace_back(key, Field{it->second, path, NodeLocation(it->second, key_where)});
+    entries_.emplace_back(key,
+                          Field{it->second, path, NodeLocation(it->second, key_where)});
     key_lines.push_back(key_where.line);
   }
 }
@@ -241,7 +252,8 @@ std::string DescribeLimits(const Limits& limits) {
 
 double AsNumber(const Field& f) {
   double x = 0.0;
-  if (!f.node.IsScalar() || !ParseDecimal(f.node.Scalar(), &x)) Fail(f, NumberTypeError(f));
+  if (!f.node.IsScalar() || !ParseDecimal(f.node.Scalar(), &x))
+    Fail(f, NumberTypeError(f));
   return x;
 }
 
@@ -294,8 +306,8 @@ std::vector<Field> AsList(const Field& f) {
   std::vector<Field> items;
   for (std::size_t i = 0; i < f.node.size(); ++i) {
     const YAML::Node item = f.node[i];
-    items.push_back(Field{item, f.path + "[" + std::to_string(i) + "]",
-                          NodeLocation(item, f.where)});
+    items.push_back(
+        Field{item, f.path + "[" + std::to_string(i) + "]", NodeLocation(item, f.where)});
   }
   return items;
 }

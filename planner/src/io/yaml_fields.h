@@ -100,8 +100,8 @@ double AsNumber(const Field& f);
 double AsNumber(const Field& f, const Limits& limits);
 int AsWholeNumber(const Field& f, const Limits& limits);
 bool AsBool(const Field& f);
-std::string AsText(const Field& f);  // any scalar
-Date AsDate(const Field& f);         // YYYY-MM-DD, a real calendar date
+std::string AsText(const Field& f);         // any scalar
+Date AsDate(const Field& f);                // YYYY-MM-DD, a real calendar date
 std::vector<Field> AsList(const Field& f);  // element paths "path[i]"
 // A list of exactly two items; `shape` names them in messages.
 std::pair<Field, Field> AsPair(const Field& f, const std::string& shape = "[lo, hi]");

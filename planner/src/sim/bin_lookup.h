@@ -21,6 +21,9 @@ class BinLookup {
   int Find(double x) const {
     if (!(x >= 0.0) || x >= end_) return -1;
     int i = first_[static_cast<int>(x * inv_width_)];
+    // Buckets are at most half the narrowest bin wide, so one branch-free step
+    // almost always suffices; the loop only runs past narrow gaps.
+    i += hi_[i] <= x;
     while (hi_[i] <= x) ++i;  // terminates: x < end_ = hi_ of the last bin
     return x >= lo_[i] ? i : -1;
   }

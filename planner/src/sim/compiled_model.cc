@@ -23,30 +23,17 @@ TiLaw::TiLaw(const TurbulenceModel& model) {
     mu_.push_back(p.mu);
     s_.push_back(p.s);
   }
+  last_index_ = static_cast<double>(points - 1) - 1e-9;
 }
 
-double TiLaw::LogSample(double speed_ms, double x) const {
-  if (table_kind_) {
-    // Nearest row outside the table or in a gap (as SigmaMomentsAt does).
-    int i = rows_ms_.Find(speed_ms);
-    if (i < 0) {
-      double best = 1e300;
-      for (size_t r = 0; r < row_bins_ms_.size(); ++r) {
-        const double d =
-            std::max(row_bins_ms_[r].lo - speed_ms, speed_ms - row_bins_ms_[r].hi);
-        if (d < best) best = d, i = static_cast<int>(r);
-      }
-    }
-    return mu_[i] + s_[i] * x;
+int TiLaw::NearestRow(double speed_ms) const {
+  int nearest = 0;
+  double best = 1e300;
+  for (size_t r = 0; r < row_bins_ms_.size(); ++r) {
+    const double d = std::max(row_bins_ms_[r].lo - speed_ms, speed_ms - row_bins_ms_[r].hi);
+    if (d < best) best = d, nearest = static_cast<int>(r);
   }
-  double g = std::max(speed_ms, kMinSpeedMs) / kStepMs;
-  const double last = static_cast<double>(mu_.size() - 1);
-  if (g > last - 1e-9) g = last - 1e-9;
-  const int i = static_cast<int>(g);
-  const double f = g - i;
-  const double mu = mu_[i] + f * (mu_[i + 1] - mu_[i]);
-  const double s = s_[i] + f * (s_[i + 1] - s_[i]);
-  return mu + s * x;
+  return nearest;
 }
 
 namespace {
@@ -104,7 +91,7 @@ void CompileWeather(const SiteModel& site, const std::vector<AngleRange>& valid,
   m->hourly_factors = site.hourly_factors;
   m->interannual_std = site.interannual_std;
   m->wind_ar1 = LatentAr1(site.wind_persistence_h);
-  m->ti_ar1 = LatentAr1(site.turbulence.persistence_h);
+  m->ti_ar1 = Ar1Skipper(site.turbulence.persistence_h);
   m->ti_law = TiLaw(site.turbulence);
 }
 
@@ -138,6 +125,11 @@ void CompileCalendar(const Plan& plan, CompiledModel* m) {
   }
 }
 
+// ceil(p * 2^32): the number of 32-bit values v with v * 2^-32 < p.
+uint64_t ProbabilityThreshold(double p) {
+  return static_cast<uint64_t>(std::ceil(p * 4294967296.0));
+}
+
 }  // namespace
 
 CompiledModel CompileModel(const Plan& plan) {
@@ -150,6 +142,8 @@ CompiledModel CompileModel(const Plan& plan) {
   m.daq_outages = CompileOutages(plan.daq_outages);
   m.parked_counts_during_outage = plan.parked_counts_during_outage;
   m.quality_reject = plan.quality_reject_fraction;
+  m.keep_threshold = ProbabilityThreshold(m.sector_chain.keep_probability);
+  m.reject_threshold = ProbabilityThreshold(m.quality_reject);
   CompileMatrix(plan.matrix, &m);
   CompileCalendar(plan, &m);
   return m;

@@ -24,6 +24,15 @@ struct CompiledGrid {
   BinLookup wind;
   std::vector<double> log_ti_lo, log_ti_hi;  // empty = not binned
   std::vector<int> cell_index;
+
+  // TI bin of ln TI, or -1: counts the bins starting at or below the value
+  // without branching, then checks that bin's [lo, hi).
+  int TiBin(double log_ti) const {
+    const int bins = static_cast<int>(log_ti_lo.size());
+    int above = 0;
+    for (int t = 1; t < bins; ++t) above += log_ti >= log_ti_lo[t];
+    return (log_ti >= log_ti_lo[above] && log_ti < log_ti_hi[above]) ? above : -1;
+  }
 };
 
 // TI given V: lognormal (mu, s) tabulated on a speed grid (IEC NTM) or looked
@@ -33,9 +42,25 @@ class TiLaw {
   TiLaw() = default;
   explicit TiLaw(const TurbulenceModel& model);
   // ln TI at speed v > 0 for the latent standard normal x.
-  double LogSample(double speed_ms, double x) const;
+  double LogSample(double speed_ms, double x) const {
+    if (table_kind_) {
+      int row = rows_ms_.Find(speed_ms);
+      if (row < 0) row = NearestRow(speed_ms);
+      return mu_[row] + s_[row] * x;
+    }
+    double g = (speed_ms > kMinSpeedMs ? speed_ms : kMinSpeedMs) * (1.0 / kStepMs);
+    if (g > last_index_) g = last_index_;
+    const int i = static_cast<int>(g);
+    const double f = g - i;
+    const double mu = mu_[i] + f * (mu_[i + 1] - mu_[i]);
+    const double s = s_[i] + f * (s_[i + 1] - s_[i]);
+    return mu + s * x;
+  }
 
  private:
+  // Row nearest to a speed outside every row (as SigmaMomentsAt does).
+  int NearestRow(double speed_ms) const;
+  double last_index_ = 0;  // highest grid position usable for interpolation
   static constexpr double kStepMs = 0.05;
   static constexpr double kMinSpeedMs = 0.5;  // below: TI of 0.5 m/s
   bool table_kind_ = false;
@@ -53,7 +78,7 @@ struct CompiledModel {
   std::array<double, 24> hourly_factors{};
   double interannual_std = 0;
   LatentAr1 wind_ar1;
-  LatentAr1 ti_ar1;
+  Ar1Skipper ti_ar1;  // TI's latent series, advanced only when needed
   TiLaw ti_law;
 
   // Valid sector: per sector, valid direction spans as fractions [lo, hi) of
@@ -65,6 +90,11 @@ struct CompiledModel {
   RenewalLaw turbine_outages, daq_outages;
   bool parked_counts_during_outage = false;
   double quality_reject = 0;
+  // The same probabilities as 32-bit integer thresholds: u < p is tested as
+  // (32 random bits) < p * 2^32, which is exact for the 32-bit uniform the
+  // simulation uses and needs no integer-to-float conversion.
+  uint64_t keep_threshold = 0;
+  uint64_t reject_threshold = 0;
 
   // Matrix.
   std::array<CompiledGrid, kOperatingStateCount> grids;

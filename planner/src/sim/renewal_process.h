@@ -38,6 +38,12 @@ class RenewalProcess {
     return up_;
   }
 
+  // First step at which UpAt may change (a huge value when disabled).
+  int64_t NextChangeStep() const {
+    if (!law_.enabled || next_change_ > 9.0e18) return INT64_MAX;
+    return static_cast<int64_t>(std::ceil(next_change_));
+  }
+
  private:
   // Exponential with the given mean.
   double Draw(double mean) {

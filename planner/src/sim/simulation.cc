@@ -15,6 +15,7 @@ namespace {
 constexpr uint64_t kTurbineSalt = 0x74757262696E6531ULL;
 constexpr uint64_t kDaqSalt = 0x6461712D6F757421ULL;
 constexpr uint64_t kYearSalt = 0x796561722D666163ULL;
+constexpr uint64_t kTiSalt = 0x74692D6C6174656EULL;
 
 inline double HighUniform(uint64_t r) { return static_cast<double>(r >> 32) * 0x1.0p-32; }
 inline double LowUniform(uint64_t r) {
@@ -28,12 +29,25 @@ inline bool InSpans(const std::vector<Bin>& spans, double u) {
   return false;
 }
 
-// The mutable state of one run.
+// The mutable state of one run. Run() keeps it, and the weather engine, in
+// locals so that the compiler can hold them in registers through the hot loop.
 struct RunState {
   int sector = 0;
   double direction_u = 0;  // position within the sector, [0, 1)
+  // Cached for the current sector and direction (they change only on a new
+  // draw of the sector, about 3 % of steps at typical persistence).
+  double sector_scale_ms = 0;
+  const SpeedTransform* transform = nullptr;
+  bool sector_ok = false;
+  // Outage states, re-evaluated only at the steps where one may change.
+  bool turbine_up = true, daq_up = true;
+  int64_t next_outage_step = 0;
   double z = 0;            // latent wind-speed normal
-  double x_ti = 0;         // latent TI normal
+  double x_ti = 0;         // latent TI normal at step ti_step
+  int64_t ti_step = 0;
+  // First step at which the loop must look at the deadline, the horizon or a
+  // completed matrix (one comparison per step instead of three).
+  int64_t checkpoint = 0;
   bool high_wind_stop = false;
   int remaining = 0;       // required cells not yet full
   int64_t turbine_up_steps = 0, daq_up_steps = 0, valid_sector_steps = 0;
@@ -45,7 +59,7 @@ class RunLoop {
       : m_(m),
         seed_(seed),
         run_(run),
-        weather_(MakeRunEngine(seed, run)),
+        ti_engine_(MakeRunEngine(seed ^ kTiSalt, run)),
         turbine_engine_(MakeRunEngine(seed ^ kTurbineSalt, run)),
         daq_engine_(MakeRunEngine(seed ^ kDaqSalt, run)),
         turbine_(m.turbine_outages, &turbine_engine_),
@@ -55,25 +69,30 @@ class RunLoop {
   void Run();
 
  private:
-  void Stop(int64_t steps);
-  void Start();
+  RunState Start(uint64_t direction_bits, double z0);
   void DrawYearFactors();
-  void Step(int64_t step, double scale);
-  int CellOf(int state, double speed_ms, double x_ti) const;
-  void Count(int cell, int64_t step);
+  void Step(int64_t step, double scale, RunState& s, Engine& weather);
+  void NewDirection(uint64_t bits, RunState& s) const;
+  void UpdateOutages(int64_t step, RunState& s);
+  int CellOf(int state, double speed_ms, int64_t step, RunState& s);
+  void Count(int cell, int64_t step, RunState& s);
+  void Stop(int64_t steps, int64_t turbine_up, int64_t daq_up, int64_t valid_sector);
+  int64_t NextCheckpoint(int64_t step, int remaining);
 
   const CompiledModel& m_;
   uint64_t seed_, run_;
-  Engine weather_;
+  Engine ti_engine_;  // TI's latent series draws only where a record needs it
   Engine turbine_engine_, daq_engine_;
   RenewalProcess turbine_, daq_;
   ZigguratNormal normal_;
-  RunState s_;
   RunResult* out_;
   std::vector<double> year_factor_;  // per campaign year
+  bool deadline_passed_ = false;
 };
 
-void RunLoop::Start() {
+// direction_bits and z0 are the weather stream's first draws. (The engine
+// itself stays out of every out-of-line call so it can live in registers.)
+RunState RunLoop::Start(uint64_t direction_bits, double z0) {
   const size_t cells = m_.required.size();
   out_->count_at_deadline.assign(cells, 0);
   out_->count_at_end.assign(cells, 0);
@@ -82,74 +101,82 @@ void RunLoop::Start() {
   out_->last_cell = -1;
   out_->simulated_steps = 0;
   // Start in the stationary distribution of direction and speed.
-  s_.sector = m_.sector_chain.frequencies.Draw(UniformDouble(weather_));
-  s_.direction_u = UniformDouble(weather_);
-  s_.z = normal_(weather_);
-  s_.x_ti = normal_(weather_);
-  s_.remaining = m_.required_cells;
+  RunState s;
+  NewDirection(direction_bits, s);
+  s.z = z0;
+  s.x_ti = normal_(ti_engine_);
+  s.remaining = m_.required_cells;
   DrawYearFactors();
+  return s;
 }
 
-void RunLoop::Count(int cell, int64_t step) {
+inline void RunLoop::Count(int cell, int64_t step, RunState& s) {
   const uint32_t n = ++out_->count_at_end[cell];
   if (n != m_.required[cell]) return;
   out_->full_step[cell] = step + 1;
   if (m_.optional[cell]) return;
-  if (--s_.remaining == 0) {
+  if (--s.remaining == 0) {
     out_->completion_step = step + 1;
     out_->last_cell = cell;
+    s.checkpoint = step + 1;
   }
 }
 
-int RunLoop::CellOf(int state, double speed_ms, double x_ti) const {
+inline int RunLoop::CellOf(int state, double speed_ms, int64_t step, RunState& s) {
   const CompiledGrid& g = m_.grids[state];
   if (!g.present) return -1;
   const int w = g.wind.Find(speed_ms);
   if (w < 0) return -1;
   const int ti_bins = static_cast<int>(g.log_ti_hi.size());
   if (ti_bins == 0) return g.cell_index[w];
-  // ln TI against the ln edges; a short linear scan (a few TI bins).
-  const double log_ti = m_.ti_law.LogSample(speed_ms, x_ti);
-  for (int t = 0; t < ti_bins; ++t) {
-    if (log_ti < g.log_ti_hi[t]) {
-      return log_ti >= g.log_ti_lo[t] ? g.cell_index[w * ti_bins + t] : -1;
-    }
-  }
-  return -1;
+  s.x_ti = m_.ti_ar1.Advance(s.x_ti, step - s.ti_step, normal_(ti_engine_));
+  s.ti_step = step;
+  const int t = g.TiBin(m_.ti_law.LogSample(speed_ms, s.x_ti));
+  return t < 0 ? -1 : g.cell_index[w * ti_bins + t];
 }
 
-void RunLoop::Step(int64_t step, double scale) {
-  // Weather: a fixed number of draws per step, whatever happens below.
-  const uint64_t r1 = weather_();
-  const uint64_t r2 = weather_();
-  const double e_z = normal_(weather_);
-  const double e_ti = normal_(weather_);
-  const int next = m_.sector_chain.Next(s_.sector, HighUniform(r1), HighUniform(r2));
-  // A new draw of the sector (even of the same one) is a new direction in it.
-  if (HighUniform(r1) >= m_.sector_chain.keep_probability) s_.direction_u = LowUniform(r2);
-  s_.sector = next;
-  s_.z = m_.wind_ar1.Next(s_.z, e_z);
-  s_.x_ti = m_.ti_ar1.Next(s_.x_ti, e_ti);
-  const double speed = m_.sector_scale_ms[s_.sector] * scale *
-                       m_.speed_transform[s_.sector](s_.z);
+// A new draw of the sector (even of the same one) is a new direction in it.
+// Both uniforms come from one 64-bit word.
+inline void RunLoop::NewDirection(uint64_t bits, RunState& s) const {
+  s.sector = m_.sector_chain.frequencies.Draw(HighUniform(bits));
+  s.direction_u = LowUniform(bits);
+  s.sector_scale_ms = m_.sector_scale_ms[s.sector];
+  s.transform = &m_.speed_transform[s.sector];
+  s.sector_ok = InSpans(m_.sector_valid_spans[s.sector], s.direction_u);
+}
+
+inline void RunLoop::UpdateOutages(int64_t step, RunState& s) {
+  s.turbine_up = turbine_.UpAt(step);
+  s.daq_up = daq_.UpAt(step);
+  s.next_outage_step = std::min(turbine_.NextChangeStep(), daq_.NextChangeStep());
+}
+
+inline void RunLoop::Step(int64_t step, double scale, RunState& s, Engine& weather) {
+  // Weather: a fixed number of draws per step, whatever happens below. r1's
+  // high half decides whether the sector is drawn anew (then SplitMix64 of r1
+  // supplies the new sector and direction), its low half the quality check.
+  const uint64_t r1 = weather();
+  const double e_z = normal_(weather);
+  if ((r1 >> 32) >= m_.keep_threshold) NewDirection(SplitMix64(r1), s);
+  s.z = m_.wind_ar1.Next(s.z, e_z);
+  const double speed = s.sector_scale_ms * scale * (*s.transform)(s.z);
 
   // Turbine state with cut-out hysteresis.
   if (speed >= m_.cut_out_ms) {
-    s_.high_wind_stop = true;
-  } else if (s_.high_wind_stop && speed < m_.restart_ms) {
-    s_.high_wind_stop = false;
+    s.high_wind_stop = true;
+  } else if (s.high_wind_stop && speed < m_.restart_ms) {
+    s.high_wind_stop = false;
   }
-  const bool turbine_up = turbine_.UpAt(step);
-  const bool daq_up = daq_.UpAt(step);
-  const bool sector_ok = InSpans(m_.sector_valid_spans[s_.sector], s_.direction_u);
-  s_.turbine_up_steps += turbine_up;
-  s_.daq_up_steps += daq_up;
-  s_.valid_sector_steps += sector_ok;
-  if (!daq_up || !sector_ok || LowUniform(r1) < m_.quality_reject) return;
-  const bool producing = turbine_up && !s_.high_wind_stop && speed >= m_.cut_in_ms;
+  if (step >= s.next_outage_step) UpdateOutages(step, s);
+  const bool turbine_up = s.turbine_up;
+  s.turbine_up_steps += turbine_up;
+  s.daq_up_steps += s.daq_up;
+  s.valid_sector_steps += s.sector_ok;
+  if (!s.daq_up || !s.sector_ok || (r1 & 0xFFFFFFFFULL) < m_.reject_threshold) return;
+  const bool producing = turbine_up && !s.high_wind_stop && speed >= m_.cut_in_ms;
   if (!producing && !turbine_up && !m_.parked_counts_during_outage) return;
-  const int cell = CellOf(producing ? 0 : 1, speed, s_.x_ti);
-  if (cell >= 0) Count(cell, step);
+  const int cell = CellOf(producing ? 0 : 1, speed, step, s);
+  if (cell >= 0) Count(cell, step, s);
 }
 
 // One lognormal factor with mean 1 and standard deviation interannual_std per
@@ -165,7 +192,10 @@ void RunLoop::DrawYearFactors() {
 }
 
 void RunLoop::Run() {
-  Start();
+  Engine weather = MakeRunEngine(seed_, run_);
+  const uint64_t direction_bits = weather();
+  const double z0 = normal_(weather);
+  RunState s = Start(direction_bits, z0);
   int64_t step = 0;
   const int64_t days = static_cast<int64_t>(m_.day_month.size());
   for (int64_t day = 0; day < days; ++day) {
@@ -174,23 +204,35 @@ void RunLoop::Run() {
     for (int hour = 0; hour < 24; ++hour) {
       const double scale = day_scale * m_.hourly_factors[hour];
       for (int k = 0; k < kStepsPerHour; ++k, ++step) {
-        if (step == m_.deadline_steps) out_->count_at_deadline = out_->count_at_end;
-        if (step >= m_.horizon_steps ||
-            (s_.remaining == 0 && step >= m_.deadline_steps)) {
-          return Stop(step);
+        if (step >= s.checkpoint) {
+          s.checkpoint = NextCheckpoint(step, s.remaining);
+          if (s.checkpoint < 0) return Stop(step, s.turbine_up_steps, s.daq_up_steps, s.valid_sector_steps);
         }
-        Step(step, scale);
+        Step(step, scale, s, weather);
       }
     }
   }
-  Stop(step);
+  Stop(step, s.turbine_up_steps, s.daq_up_steps, s.valid_sector_steps);
 }
 
-void RunLoop::Stop(int64_t steps) {
+// The next step the loop must stop at, or -1 when the run is over. Takes the
+// deadline snapshot on the way. (RunState stays out of its signature so that
+// the compiler can keep it in registers.)
+int64_t RunLoop::NextCheckpoint(int64_t step, int remaining) {
+  if (step == m_.deadline_steps) {
+    out_->count_at_deadline = out_->count_at_end;
+    deadline_passed_ = true;
+  }
+  if (step >= m_.horizon_steps || (remaining == 0 && deadline_passed_)) return -1;
+  return deadline_passed_ ? m_.horizon_steps : std::min(m_.deadline_steps, m_.horizon_steps);
+}
+
+void RunLoop::Stop(int64_t steps, int64_t turbine_up, int64_t daq_up,
+                   int64_t valid_sector) {
   out_->simulated_steps = steps;
-  out_->turbine_up_steps = s_.turbine_up_steps;
-  out_->daq_up_steps = s_.daq_up_steps;
-  out_->valid_sector_steps = s_.valid_sector_steps;
+  out_->turbine_up_steps = turbine_up;
+  out_->daq_up_steps = daq_up;
+  out_->valid_sector_steps = valid_sector;
 }
 
 }  // namespace

@@ -33,6 +33,27 @@ struct LatentAr1 {
   double Next(double z, double e) const { return phi * z + innovation * e; }
 };
 
+// Advances a standard-normal AR(1) by k steps at once, exactly:
+// x_{t+k} | x_t ~ N(phi^k x_t, 1 - phi^{2k}) (Gaussian AR(1) property; Box &
+// Jenkins). Used for TI's latent series, which is only needed at records that
+// reach a TI-binned cell: one normal per such record instead of per step.
+class Ar1Skipper {
+ public:
+  static constexpr int kTable = 1024;  // k below this from tables, above via exp
+
+  explicit Ar1Skipper(double tau_h = 0.0);
+  // e ~ N(0, 1); k >= 0.
+  double Advance(double x, int64_t k, double e) const {
+    if (k < kTable) return keep_[k] * x + fresh_[k] * e;
+    const double p = std::exp(static_cast<double>(k) * log_phi_);
+    return p * x + std::sqrt(1.0 - p * p) * e;
+  }
+
+ private:
+  double log_phi_ = -HUGE_VAL;
+  std::vector<double> keep_, fresh_;  // phi^k and sqrt(1 - phi^2k)
+};
+
 struct SectorChain {
   double keep_probability = 0.0;
   AliasTable frequencies;

@@ -30,25 +30,33 @@ ZigguratNormal::Tables::Tables() {
   }
 }
 
-double ZigguratNormal::Slow(Engine& e, int32_t hz, int iz) {
+double ZigguratNormal::Slow(uint64_t r) {
+  uint64_t counter = r;
+  auto uniform = [&counter]() {
+    counter += 0x9E3779B97F4A7C15ULL;
+    return static_cast<double>(SplitMix64(counter) >> 11) * 0x1.0p-53;
+  };
+  int32_t hz = static_cast<int32_t>(r >> 32);
+  int iz = static_cast<int>(r & 127);
   for (;;) {
     const double x = hz * kTables.wn[iz];
     if (iz == 0) {
       // Base strip: sample the tail beyond kR (Marsaglia 1964).
       double tx, ty;
       do {
-        tx = -std::log1p(-UniformDouble(e)) / kR;
-        ty = -std::log1p(-UniformDouble(e));
+        tx = -std::log1p(-uniform()) / kR;
+        ty = -std::log1p(-uniform());
       } while (ty + ty < tx * tx);
       return hz > 0 ? kR + tx : -kR - tx;
     }
-    if (kTables.fn[iz] + UniformDouble(e) * (kTables.fn[iz - 1] - kTables.fn[iz]) <
+    if (kTables.fn[iz] + uniform() * (kTables.fn[iz - 1] - kTables.fn[iz]) <
         std::exp(-0.5 * x * x)) {
       return x;
     }
-    const uint64_t r = e();
-    hz = static_cast<int32_t>(r >> 32);
-    iz = static_cast<int>(r & 127);
+    counter += 0x9E3779B97F4A7C15ULL;
+    const uint64_t next = SplitMix64(counter);
+    hz = static_cast<int32_t>(next >> 32);
+    iz = static_cast<int>(next & 127);
     const uint32_t abs_hz =
         hz < 0 ? 0u - static_cast<uint32_t>(hz) : static_cast<uint32_t>(hz);
     if (abs_hz < kTables.kn[iz]) return hz * kTables.wn[iz];

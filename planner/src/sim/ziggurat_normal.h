@@ -3,7 +3,8 @@
 // 5(8), 2000), 128 layers. Following Doornik ("An Improved Ziggurat Method to
 // Generate Normal Random Samples", 2005), the layer index and the value come
 // from different bits of one 64-bit draw, which removes the correlation of the
-// original. About three times faster here than Boost 1.74's
+// original. The rejection steps take their uniforms from SplitMix64 of the
+// rejected word (see Slow). About three times faster here than Boost 1.74's
 // normal_distribution, which matters at two normals per 10-minute step
 // (docs/performance.md); tests compare it with Boost.Math's normal CDF.
 #ifndef PLANNER_SIM_ZIGGURAT_NORMAL_H_
@@ -24,7 +25,7 @@ class ZigguratNormal {
     const int iz = static_cast<int>(r & 127);
     const uint32_t abs_hz = hz < 0 ? 0u - static_cast<uint32_t>(hz) : static_cast<uint32_t>(hz);
     if (abs_hz < kTables.kn[iz]) return hz * kTables.wn[iz];
-    return Slow(e, hz, iz);
+    return Slow(r);
   }
 
  private:
@@ -35,7 +36,11 @@ class ZigguratNormal {
     Tables();
   };
   static const Tables kTables;
-  static double Slow(Engine& e, int32_t hz, int iz);
+  // The rare rejection steps draw their further uniforms from SplitMix64 of
+  // the rejected 64-bit word, not from the engine: the engine's state then
+  // never leaves the caller's registers, and the draws stay a deterministic
+  // function of the stream.
+  static double Slow(uint64_t r);
 };
 
 }  // namespace planner
