@@ -15,12 +15,15 @@ namespace planner {
 
 // What the turbine was doing during a record.
 enum class OperatingState {
-  kProduction,  // available, cut-in <= V < cut-out, not stopped for high wind
-  kParked,      // parked or idling: below cut-in, above cut-out, or restarting
+  kProduction,  // available, cut-in <= V < cut-out, not stopped or curtailed
+  kParked,      // parked or idling: below cut-in, above cut-out, restarting,
+                // or stopped by a curtailment rule
+  kReduced,     // producing in a reduced (derated) mode set by a curtailment
+                // rule: not normal production
 };
-inline constexpr int kOperatingStateCount = 2;
+inline constexpr int kOperatingStateCount = 3;
 
-// "production" / "parked".
+// "production" / "parked" / "reduced".
 const char* OperatingStateName(OperatingState s);
 
 struct Bin {
@@ -30,6 +33,10 @@ struct Bin {
 
 struct Cell {
   OperatingState state = OperatingState::kProduction;
+  // -1 for a cell of 10-minute records; otherwise an event cell counting
+  // events of type CaptureMatrix::event_types[event] whose wind speed lies in
+  // wind_ms (state is then unused, ti_binned false).
+  int event = -1;
   Bin wind_ms;
   bool ti_binned = false;  // false: any TI; ti_pct is then unused
   Bin ti_pct;              // TI bin in percent
@@ -47,9 +54,17 @@ struct StateGrid {
   std::vector<int> cell_index;
 };
 
+// Event types. The natural ones are fixed; manual tests are named by the plan.
+inline constexpr const char* kStartUpEvent = "start_up";        // any start to production
+inline constexpr const char* kNormalStopEvent = "normal_stop";  // production ends by wind
+                                                                // (below cut-in, cut-out)
+
 struct CaptureMatrix {
-  std::vector<Cell> cells;
+  std::vector<Cell> cells;       // record cells (grid order), then event cells
   std::vector<StateGrid> grids;  // at most one per state
+  // Names of the event types the event cells refer to: "start_up",
+  // "normal_stop", or the name of a manual test in Plan::manual_tests.
+  std::vector<std::string> event_types;
 };
 
 // Index of the bin containing x, or -1. bins must be sorted, non-overlapping.
@@ -58,8 +73,10 @@ int FindBin(const std::vector<Bin>& bins, double x);
 // Number of cells that hold up completion.
 int RequiredCellCount(const CaptureMatrix& m);
 
-// Human label, e.g. "production 11-12 m/s TI 12-16 %" or "parked 25-26 m/s".
+// Human label, e.g. "production 11-12 m/s TI 12-16 %", "parked 25-26 m/s" or
+// (with the matrix, for event names) "event start_up 3-5 m/s".
 std::string CellLabel(const Cell& c);
+std::string CellLabel(const CaptureMatrix& m, const Cell& c);
 
 }  // namespace planner
 

@@ -4,12 +4,14 @@
 #ifndef PLANNER_PLAN_H_
 #define PLANNER_PLAN_H_
 
+#include <array>
 #include <string>
 #include <vector>
 
 #include "planner/angle_range.h"
 #include "planner/calendar.h"
 #include "planner/capture_matrix.h"
+#include "planner/disturbed_sector.h"
 #include "planner/site_model.h"
 
 namespace planner {
@@ -27,11 +29,72 @@ struct TurbineSpec {
   double restart_ms = 22.0;
 };
 
-// Alternating renewal process of up and repair times (exponential laws in
-// this version). Long-run availability = MTBF / (MTBF + MTTR).
+// Law of a duration (up time or repair time), given by its mean.
+struct DurationLaw {
+  enum class Kind { kExponential, kWeibull, kLognormal };
+  Kind kind = Kind::kExponential;
+  // Weibull: shape k (> 0; k < 1 = early failures dominate). Lognormal: sigma
+  // of ln(duration) (> 0). Unused for the exponential.
+  double shape = 1.0;
+};
+
+// Alternating renewal process of up and repair times. Long-run availability
+// = MTBF / (MTBF + MTTR) (reliability-engineering textbook result).
 struct OutageModel {
   double mtbf_h = 0.0;  // mean time between failures (mean up time), hours; 0 = never fails
   double mttr_h = 0.0;  // mean time to repair, hours
+  DurationLaw up_law;      // law of up times, mean mtbf_h
+  DurationLaw repair_law;  // law of repair times, mean mttr_h
+  // Factor on the duration of a repair that starts in each month (Jan..Dec),
+  // e.g. 1.5 in winter when access is harder. Default 1.
+  std::array<double, 12> repair_month_factors{1, 1, 1, 1, 1, 1, 1, 1, 1, 1, 1, 1};
+};
+
+// A fixed planned outage (e.g. a scheduled retrofit): [from, to) dates.
+struct PlannedOutage {
+  std::string name;
+  Date from;
+  Date to;  // exclusive
+  bool turbine = true;  // the turbine is out of service
+  bool daq = false;     // the data acquisition is down
+};
+
+// Hours of the day [from_hour, to_hour), may wrap past midnight (22 -> 6).
+struct HourWindow {
+  int from_hour = 0;  // 0..23
+  int to_hour = 24;   // 1..24; from == 0 && to == 24 = all day
+};
+
+// A curtailment rule: while all its conditions hold, the turbine stops or
+// runs in a reduced mode. Records then do not count as normal production.
+struct CurtailmentRule {
+  std::string name;
+  std::vector<int> months;  // 1..12; empty = every month
+  HourWindow hours;
+  double wind_lo_ms = 0.0;    // applies for wind_lo_ms <= V < wind_hi_ms
+  double wind_hi_ms = 1e9;
+  std::vector<AngleRange> directions;  // empty = every direction
+  enum class Action { kStop, kReduce };
+  Action action = Action::kStop;
+};
+
+// Who can be on site for manual tests.
+struct CrewSchedule {
+  std::array<bool, 7> weekdays{false, true, true, true, true, true, false};  // Sun..Sat
+  HourWindow hours{8, 16};
+};
+
+// A manual test (e.g. an emergency stop or a grid-loss test), done when the
+// crew is on site, the wind is in its window, the turbine is producing and the
+// record would be valid (acquisition up, valid sector). The simulation does it
+// at the first such opportunity, at most once per min_interval_h. Its event
+// cells (by wind range) count the tests whose record also passes the quality
+// check.
+struct ManualTest {
+  std::string name;             // event type name, e.g. "emergency_stop"
+  double wind_lo_ms = 0.0;      // window [lo, hi) for doing the test
+  double wind_hi_ms = 1e9;
+  double min_interval_h = 4.0;  // between two tests of this kind
 };
 
 struct Plan {
@@ -47,11 +110,18 @@ struct Plan {
   TurbineSpec turbine;
 
   // Valid measurement sectors; a record counts only if its direction is in
-  // one of them. Default: the full circle.
+  // one of them. Default: the full circle. When a layout is given, the reader
+  // sets this to ValidSectorsFromLayout(layout, the sectors written in the
+  // plan or the full circle).
   std::vector<AngleRange> valid_sectors{AngleRange{0.0, 360.0}};
+  SiteLayout layout;  // neighbours, obstacles, exclusions (may be empty)
 
   OutageModel turbine_outages;
   OutageModel daq_outages;  // data acquisition
+  std::vector<PlannedOutage> planned_outages;
+  std::vector<CurtailmentRule> curtailment;
+  CrewSchedule crew;
+  std::vector<ManualTest> manual_tests;
   // Count parked records while the turbine is out of service (false: outage
   // records are maintenance time and count for no cell).
   bool parked_counts_during_outage = false;

@@ -11,6 +11,8 @@ const char* OperatingStateName(OperatingState s) {
       return "production";
     case OperatingState::kParked:
       return "parked";
+    case OperatingState::kReduced:
+      return "reduced";
   }
   return "unknown";
 }
@@ -36,7 +38,16 @@ std::string Range(const Bin& b) {
 }
 }  // namespace
 
+std::string CellLabel(const CaptureMatrix& m, const Cell& c) {
+  if (c.event < 0) return CellLabel(c);
+  const std::string name = c.event < static_cast<int>(m.event_types.size())
+                               ? m.event_types[c.event]
+                               : std::string("?");
+  return "event " + name + " " + Range(c.wind_ms) + " m/s";
+}
+
 std::string CellLabel(const Cell& c) {
+  if (c.event >= 0) return "event " + Range(c.wind_ms) + " m/s";
   std::string label = OperatingStateName(c.state);
   label += " " + Range(c.wind_ms) + " m/s";
   if (c.ti_binned) label += " TI " + Range(c.ti_pct) + " %";

@@ -1,0 +1,67 @@
+// Valid measurement sector from the layout around the measurement: the
+// sectors disturbed by the wakes of neighbouring turbines and by obstacles
+// are removed (IEC 61400-12-1, Annex A), as are manual exclusions.
+//
+// Disturbed sector of a neighbour at distance L with rotor diameter D:
+//   alpha = 1.3 arctan(2.5 D/L + 0.15) + 10 degrees, centred on its bearing,
+// defined for 2 <= L/D <= 20 (Annex A). Check values computed from the
+// formula: L/D = 2 -> 80.8 deg, 4 -> 59.1, 10 -> 38.3, 20 -> 30.0.
+// See docs/methods.md for what fillcast does outside that range and for
+// obstacles (through their equivalent rotor diameter).
+#ifndef PLANNER_DISTURBED_SECTOR_H_
+#define PLANNER_DISTURBED_SECTOR_H_
+
+#include <string>
+#include <vector>
+
+#include "planner/angle_range.h"
+
+namespace planner {
+
+// Positions are seen from the point whose inflow is measured (the met mast,
+// or the turbine under test for a nacelle-based measurement).
+struct NeighbourTurbine {
+  std::string name;
+  double bearing_deg = 0.0;  // direction to it, clockwise from north
+  double distance_m = 0.0;   // > 0
+  double rotor_diameter_m = 0.0;
+};
+
+struct Obstacle {
+  std::string name;
+  double bearing_deg = 0.0;
+  double distance_m = 0.0;
+  double height_m = 0.0;
+  double width_m = 0.0;
+};
+
+struct SiteLayout {
+  std::vector<NeighbourTurbine> neighbours;
+  std::vector<Obstacle> obstacles;
+  std::vector<AngleRange> exclusions;  // manual, e.g. a terrain feature
+  bool empty() const { return neighbours.empty() && obstacles.empty() && exclusions.empty(); }
+};
+
+struct DisturbedSector {
+  std::string reason;  // e.g. "wake of WTG-2 (L/D 3.5)"
+  AngleRange range;
+  // Set when the formula's range 2 <= L/D <= 20 was left; says what was done.
+  std::string note;
+};
+
+// alpha in degrees for distance / diameter ratio l_over_d (the formula as
+// published, for any positive ratio; callers apply the range rules).
+double DisturbedSectorWidthDeg(double l_over_d);
+
+// Every disturbed sector of the layout, in the order: neighbours, obstacles,
+// manual exclusions.
+std::vector<DisturbedSector> DisturbedSectors(const SiteLayout& layout);
+
+// What remains of `allowed` (default: the full circle) after removing every
+// disturbed sector; sorted by start, non-overlapping.
+std::vector<AngleRange> ValidSectorsFromLayout(const SiteLayout& layout,
+                                               const std::vector<AngleRange>& allowed);
+
+}  // namespace planner
+
+#endif  // PLANNER_DISTURBED_SECTOR_H_
