@@ -258,7 +258,7 @@ TEST(ForecastReportTextTest, HasLabelledRowsDatesAndCautions) {
   ASSERT_NE(low_row, std::string::npos) << text;
   EXPECT_LT(mid_row, low_row);
   EXPECT_EQ(flat.find(storm), std::string::npos);  // optional cell left out
-  EXPECT_NE(flat.find("Counts are valid 10-minute records; weeks count from the start."),
+  EXPECT_NE(flat.find("Counts are valid 10-minute records (events: counted events); weeks count from the start."),
             std::string::npos);
 
   EXPECT_NE(flat.find("Most often last to fill: " + mid + " (in 58 % of runs)"),

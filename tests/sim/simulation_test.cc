@@ -16,6 +16,7 @@
 namespace planner {
 namespace {
 
+using testing_plans::Outages;
 using testing_plans::SingleCellPlan;
 
 std::vector<RunResult> Simulate(const Plan& plan, int runs, uint64_t seed, int threads = 2) {
@@ -87,8 +88,8 @@ TEST(SimulationTest, MeanCountAtDeadlineIsRecordsTimesProbabilities) {
   plan.site.wind_persistence_h = 24.0;
   plan.valid_sectors = {AngleRange{300, 0}};  // half of sector 0 (300..60)
   plan.valid_sectors.push_back(AngleRange{60, 180});  // all of sector 1
-  plan.turbine_outages = {200.0, 40.0};
-  plan.daq_outages = {500.0, 20.0};
+  plan.turbine_outages = Outages(200.0, 40.0);
+  plan.daq_outages = Outages(500.0, 20.0);
   plan.quality_reject_fraction = 0.05;
   const int runs = 600;
   const std::vector<RunResult> results = Simulate(plan, runs, 4242);
@@ -117,7 +118,7 @@ TEST(SimulationTest, SameSeedSameResultsForAnyThreadCount) {
   Plan plan = SingleCellPlan(8.0, 2.0, 10.0, 12.0, 30, 7, 8);
   plan.site.wind_persistence_h = 30;
   plan.site.sector_persistence = 0.97;
-  plan.turbine_outages = {300, 30};
+  plan.turbine_outages = Outages(300, 30);
   const std::vector<RunResult> one = Simulate(plan, 64, 5, 1);
   const std::vector<RunResult> two = Simulate(plan, 64, 5, 2);
   const std::vector<RunResult> three = Simulate(plan, 64, 5, 3);

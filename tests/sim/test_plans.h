@@ -7,6 +7,14 @@
 namespace planner {
 namespace testing_plans {
 
+// Exponential outages with the given MTBF and MTTR in hours.
+inline OutageModel Outages(double mtbf_h, double mttr_h) {
+  OutageModel m;
+  m.mtbf_h = mtbf_h;
+  m.mttr_h = mttr_h;
+  return m;
+}
+
 // One sector (Weibull a_ms, k), independent records, always available, all
 // directions valid, no quality rejects; one production cell [lo_ms, hi_ms)
 // without TI bins needing `required` records. Deadline after `deadline_days`,

@@ -53,8 +53,14 @@ struct DisturbedSector {
 // published, for any positive ratio; callers apply the range rules).
 double DisturbedSectorWidthDeg(double l_over_d);
 
+// Equivalent rotor diameter of an obstacle of height h and width w, used in
+// place of D in the formula: D_e = 2 h w / (h + w) (IEC 61400-12-1 Annex A;
+// formula from memory).
+double ObstacleEquivalentDiameterM(const Obstacle& o);
+
 // Every disturbed sector of the layout, in the order: neighbours, obstacles,
-// manual exclusions.
+// manual exclusions. One entry per item; an item beyond L/D 20 keeps its entry
+// with an empty range (from == to) and a note, so that it can be reported.
 std::vector<DisturbedSector> DisturbedSectors(const SiteLayout& layout);
 
 // What remains of `allowed` (default: the full circle) after removing every

@@ -48,6 +48,8 @@ struct ForecastSummary {
   double turbine_availability = 0;
   double daq_availability = 0;
   double valid_sector_share = 0;
+  double curtailed_share = 0;  // time with a curtailment rule in force
+  double mean_speed_ms = 0;    // mean simulated wind speed at hub height
 };
 
 ForecastSummary SummarizeForecast(const CaptureMatrix& matrix, int64_t deadline_steps,

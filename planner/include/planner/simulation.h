@@ -45,6 +45,8 @@ struct RunResult {
   int64_t turbine_up_steps = 0;
   int64_t daq_up_steps = 0;
   int64_t valid_sector_steps = 0;
+  int64_t curtailed_steps = 0;  // steps with a curtailment rule in force
+  double speed_sum_ms = 0;      // sum of the simulated mean wind speeds
 };
 
 struct CompiledModel;  // lookup tables built once per plan (sim/compiled_model.h)

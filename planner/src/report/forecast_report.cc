@@ -168,7 +168,8 @@ std::string TextCompletion(const Plan& plan, const ForecastSummary& s) {
   return out;
 }
 
-std::string TextThinCells(const ForecastSummary& s, const ReportContext& ctx) {
+std::string TextThinCells(const Plan& plan, const ForecastSummary& s,
+                          const ReportContext& ctx) {
   const std::vector<const CellForecast*> thin =
       ThinnestCells(s, ctx.thin_cell_rows, false);
   int required_cells = 0;
@@ -179,9 +180,10 @@ std::string TextThinCells(const ForecastSummary& s, const ReportContext& ctx) {
       thin.size(), required_cells);
   if (thin.empty()) return out + "  (none)\n";
 
-  out += "  Counts are valid 10-minute records; weeks count from the start.\n";
+  out += "  Counts are valid 10-minute records (events: counted events); weeks count from the "
+         "start.\n";
   size_t w = 4;
-  for (const CellForecast* c : thin) w = std::max(w, CellLabel(c->cell).size());
+  for (const CellForecast* c : thin) w = std::max(w, CellLabel(plan.matrix, c->cell).size());
   w = std::min(w, kMaxLabelWidth);
   const int lw = static_cast<int>(w);
   out += Printf("  %-*s  %8s  %-31s  %11s\n", lw, "", "",
@@ -191,19 +193,19 @@ std::string TextThinCells(const ForecastSummary& s, const ReportContext& ctx) {
   for (const CellForecast* c : thin) {
     const std::string range = Printf("%.0f-%.0f", c->count_p10, c->count_p90);
     out += Printf("  %-*s  %8d  %8.1f  %11s  %8s  %s\n", lw,
-                  FitLabel(CellLabel(c->cell), w).c_str(), c->cell.required,
+                  FitLabel(CellLabel(plan.matrix, c->cell), w).c_str(), c->cell.required,
                   c->count_mean, range.c_str(), Percent(c->p_full_by_deadline).c_str(),
                   WeeksText(c->weeks_to_full_p50, 11).c_str());
   }
   return out;
 }
 
-std::string TextBottleneckAndDiagnostics(const ForecastSummary& s) {
+std::string TextBottleneckAndDiagnostics(const Plan& plan, const ForecastSummary& s) {
   std::string out = "\n";
   if (s.bottleneck_cell >= 0 && s.bottleneck_cell < static_cast<int>(s.cells.size())) {
     const CellForecast& c = s.cells[static_cast<size_t>(s.bottleneck_cell)];
     out += Wrap("", Printf("Most often last to fill: %s (in %.0f %% of runs)",
-                           CellLabel(c.cell).c_str(), 100.0 * c.p_last_to_fill));
+                           CellLabel(plan.matrix, c.cell).c_str(), 100.0 * c.p_last_to_fill));
   } else {
     out += "Most often last to fill: none (no run completed within the horizon)\n";
   }
@@ -214,6 +216,8 @@ std::string TextBottleneckAndDiagnostics(const ForecastSummary& s) {
                 Percent(s.daq_availability).c_str());
   out += Printf("  Wind from a valid sector:     %8s\n",
                 Percent(s.valid_sector_share).c_str());
+  out += Printf("  Curtailment rule in force:    %8s\n", Percent(s.curtailed_share).c_str());
+  out += Printf("  Mean wind speed at hub:       %6.2f m/s\n", s.mean_speed_ms);
   return out;
 }
 
@@ -227,11 +231,14 @@ Json QuantileJson(const QuantileEstimate& q) {
   return Json::array({OptionalNumber(q.ci_lo), OptionalNumber(q.ci_hi)});
 }
 
-Json CellJson(const CellForecast& c) {
+Json CellJson(const CaptureMatrix& m, const CellForecast& c) {
   Json j;
   j["index"] = c.index;
-  j["label"] = CellLabel(c.cell);
-  j["state"] = OperatingStateName(c.cell.state);
+  j["label"] = CellLabel(m, c.cell);
+  const bool event = c.cell.event >= 0 && c.cell.event < static_cast<int>(m.event_types.size());
+  j["kind"] = event ? "event" : "records";
+  j["state"] = event ? "event" : OperatingStateName(c.cell.state);
+  j["event"] = event ? Json(m.event_types[static_cast<size_t>(c.cell.event)]) : Json(nullptr);
   j["wind_ms"] = Json::array({c.cell.wind_ms.lo, c.cell.wind_ms.hi});
   j["ti"] = c.cell.ti_binned ? Json::array({c.cell.ti_pct.lo, c.cell.ti_pct.hi})
                              : Json(nullptr);
@@ -279,8 +286,8 @@ std::string FormatForecastText(const Plan& plan, const ForecastSummary& s,
                                const ReportContext& ctx) {
   std::string out = TextHeader(plan, s, ctx);
   out += TextCompletion(plan, s);
-  out += TextThinCells(s, ctx);
-  out += TextBottleneckAndDiagnostics(s);
+  out += TextThinCells(plan, s, ctx);
+  out += TextBottleneckAndDiagnostics(plan, s);
   const std::vector<std::string> notes = ResultNotes(s);
   if (!notes.empty()) {
     out += "\nNotes on this result\n";
@@ -311,16 +318,18 @@ std::string FormatForecastJson(const Plan& plan, const ForecastSummary& s,
   if (s.bottleneck_cell >= 0 && s.bottleneck_cell < static_cast<int>(s.cells.size())) {
     const CellForecast& c = s.cells[static_cast<size_t>(s.bottleneck_cell)];
     j["bottleneck"] = {{"cell", c.index},
-                       {"label", CellLabel(c.cell)},
+                       {"label", CellLabel(plan.matrix, c.cell)},
                        {"p_last_to_fill", c.p_last_to_fill}};
   } else {
     j["bottleneck"] = nullptr;
   }
   j["cells"] = Json::array();
-  for (const CellForecast& c : s.cells) j["cells"].push_back(CellJson(c));
+  for (const CellForecast& c : s.cells) j["cells"].push_back(CellJson(plan.matrix, c));
   j["diagnostics"] = {{"turbine_availability", s.turbine_availability},
                       {"daq_availability", s.daq_availability},
-                      {"valid_sector_share", s.valid_sector_share}};
+                      {"valid_sector_share", s.valid_sector_share},
+                      {"curtailed_share", s.curtailed_share},
+                      {"mean_speed_ms", s.mean_speed_ms}};
   j["notes"] = ResultNotes(s);
   j["cautions"] = StandardCautions();
   return j.dump(2) + "\n";

@@ -38,13 +38,6 @@ int TiLaw::NearestRow(double speed_ms) const {
 
 namespace {
 
-RenewalLaw CompileOutages(const OutageModel& m) {
-  RenewalLaw law;
-  law.enabled = m.mtbf_h > 0.0 && m.mttr_h > 0.0;
-  law.mean_up_steps = m.mtbf_h * kStepsPerHour;
-  law.mean_down_steps = m.mttr_h * kStepsPerHour;
-  return law;
-}
 
 // Valid spans of sector i as fractions of its width.
 std::vector<Bin> ValidSpans(const std::vector<AngleRange>& valid, double start_deg,
@@ -85,6 +78,7 @@ void CompileWeather(const SiteModel& site, const std::vector<AngleRange>& valid,
     const double start = static_cast<double>(i) * width - 0.5 * width;
     m->sector_valid_spans.push_back(ValidSpans(valid, start, width));
   }
+  m->sector_width_deg = width;
   m->sector_chain.keep_probability = site.sector_persistence;
   m->sector_chain.frequencies = AliasTable(freq);
   m->monthly_factors = site.monthly_factors;
@@ -138,14 +132,15 @@ CompiledModel CompileModel(const Plan& plan) {
   m.cut_in_ms = plan.turbine.cut_in_ms;
   m.cut_out_ms = plan.turbine.cut_out_ms;
   m.restart_ms = plan.turbine.restart_ms;
-  m.turbine_outages = CompileOutages(plan.turbine_outages);
-  m.daq_outages = CompileOutages(plan.daq_outages);
+  m.turbine_outages = MakeRenewalLaw(plan.turbine_outages);
+  m.daq_outages = MakeRenewalLaw(plan.daq_outages);
   m.parked_counts_during_outage = plan.parked_counts_during_outage;
   m.quality_reject = plan.quality_reject_fraction;
   m.keep_threshold = ProbabilityThreshold(m.sector_chain.keep_probability);
   m.reject_threshold = ProbabilityThreshold(m.quality_reject);
   CompileMatrix(plan.matrix, &m);
   CompileCalendar(plan, &m);
+  CompileOperations(plan, &m);
   return m;
 }
 

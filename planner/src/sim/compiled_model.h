@@ -69,6 +69,36 @@ class TiLaw {
   std::vector<Bin> row_bins_ms_;    // table kind only, for the nearest row
 };
 
+// Step intervals [from, to) during which something is out of service.
+struct StepInterval {
+  int64_t from = 0;
+  int64_t to = 0;
+};
+
+// A curtailment rule as the loop tests it; when and where it may apply is in
+// CompiledModel::curtail_time_mask and the per-direction masks.
+struct CompiledCurtailment {
+  double wind_lo_ms = 0, wind_hi_ms = 1e9;
+  bool reduce = false;                  // false: stop
+  std::vector<AngleRange> directions;   // empty = all
+};
+
+// Event cells of one event type: wind bins -> cell index.
+struct EventCells {
+  BinLookup wind;
+  std::vector<int> cells;
+  bool manual = false;  // a manual test (scheduled), not a natural event
+};
+
+struct CompiledManualTest {
+  int event_type = -1;  // index into CompiledModel::events
+  double wind_lo_ms = 0, wind_hi_ms = 1e9;
+  int64_t min_interval_steps = 0;
+};
+
+// At most this many curtailment rules (bits of a mask); the reader checks.
+inline constexpr int kMaxCurtailmentRules = 32;
+
 struct CompiledModel {
   // Weather.
   SectorChain sector_chain;
@@ -84,10 +114,12 @@ struct CompiledModel {
   // Valid sector: per sector, valid direction spans as fractions [lo, hi) of
   // the sector's width (measured clockwise from its start).
   std::vector<std::vector<Bin>> sector_valid_spans;
+  double sector_width_deg = 360;
 
   // Turbine.
   double cut_in_ms = 3, cut_out_ms = 25, restart_ms = 22;
   RenewalLaw turbine_outages, daq_outages;
+  std::vector<StepInterval> planned_turbine, planned_daq;  // sorted, merged
   bool parked_counts_during_outage = false;
   double quality_reject = 0;
   // The same probabilities as 32-bit integer thresholds: u < p is tested as
@@ -95,6 +127,18 @@ struct CompiledModel {
   // simulation uses and needs no integer-to-float conversion.
   uint64_t keep_threshold = 0;
   uint64_t reject_threshold = 0;
+
+  // Curtailment: rules, and per (month, hour) the bit mask of rules in force.
+  std::vector<CompiledCurtailment> curtailment;
+  std::array<std::array<uint32_t, 24>, 12> curtail_time_mask{};
+
+  // Events: per event type (CaptureMatrix::event_types order) its cells.
+  std::vector<EventCells> events;
+  int start_up_event = -1;     // index into events, -1 if no such cells
+  int normal_stop_event = -1;
+  std::vector<CompiledManualTest> manual_tests;
+  uint32_t crew_hour_mask = 0;  // bit h: crew on site during hour h
+  std::vector<uint8_t> manual_test_cell;  // per cell: 1 if it counts a manual test
 
   // Matrix.
   std::array<CompiledGrid, kOperatingStateCount> grids;
@@ -105,11 +149,19 @@ struct CompiledModel {
   // Calendar: per day from start, month index 0..11 and campaign year.
   std::vector<uint8_t> day_month;
   std::vector<uint16_t> day_year;
+  std::vector<uint8_t> day_crew;  // 1 if the crew works that weekday
   int64_t deadline_steps = 0;
   int64_t horizon_steps = 0;
 };
 
 CompiledModel CompileModel(const Plan& plan);
+
+// Parts of CompileModel for the plan's operations (compile_operations.cc):
+// planned outages, curtailment, events and manual tests, crew calendar.
+void CompileOperations(const Plan& plan, CompiledModel* m);
+
+// Bit mask of the hours 0..23 inside a window (wrapping past midnight).
+uint32_t HourMask(const HourWindow& w);
 
 }  // namespace planner
 

@@ -107,17 +107,22 @@ CellForecast SummarizeCell(const CaptureMatrix& matrix, int index, int64_t deadl
 
 void SummarizeDiagnostics(const std::vector<RunResult>& runs, ForecastSummary* s) {
   // Ratios of sums: shares of all simulated time, so long runs weigh more.
-  double simulated = 0, turbine_up = 0, daq_up = 0, valid_sector = 0;
+  double simulated = 0, turbine_up = 0, daq_up = 0, valid_sector = 0, curtailed = 0;
+  double speed_sum = 0;
   for (const RunResult& r : runs) {
     simulated += static_cast<double>(r.simulated_steps);
     turbine_up += static_cast<double>(r.turbine_up_steps);
     daq_up += static_cast<double>(r.daq_up_steps);
     valid_sector += static_cast<double>(r.valid_sector_steps);
+    curtailed += static_cast<double>(r.curtailed_steps);
+    speed_sum += r.speed_sum_ms;
   }
   if (simulated > 0) {
     s->turbine_availability = turbine_up / simulated;
     s->daq_availability = daq_up / simulated;
     s->valid_sector_share = valid_sector / simulated;
+    s->curtailed_share = curtailed / simulated;
+    s->mean_speed_ms = speed_sum / simulated;
   }
 }
 

@@ -5,6 +5,7 @@
 
 #include "planner/random_stream.h"
 #include "sim/compiled_model.h"
+#include "sim/outage_windows.h"
 #include "sim/ziggurat_normal.h"
 
 namespace planner {
@@ -29,6 +30,9 @@ inline bool InSpans(const std::vector<Bin>& spans, double u) {
   return false;
 }
 
+// Curtailment outcome of a step.
+enum Curtail : int { kNotCurtailed = 0, kReduce = 1, kStop = 2 };
+
 // The mutable state of one run. Run() keeps it, and the weather engine, in
 // locals so that the compiler can hold them in registers through the hot loop.
 struct RunState {
@@ -39,18 +43,26 @@ struct RunState {
   double sector_scale_ms = 0;
   const SpeedTransform* transform = nullptr;
   bool sector_ok = false;
+  uint32_t direction_rules = 0;  // curtailment rules whose direction holds
+  double z = 0;                  // latent wind-speed normal
+  double x_ti = 0;               // latent TI normal at step ti_step
+  int64_t ti_step = 0;
+  bool high_wind_stop = false;
+  int8_t prev_producing = -1;    // -1 before the first step
   // Outage states, re-evaluated only at the steps where one may change.
   bool turbine_up = true, daq_up = true;
   int64_t next_outage_step = 0;
-  double z = 0;            // latent wind-speed normal
-  double x_ti = 0;         // latent TI normal at step ti_step
-  int64_t ti_step = 0;
+  // Set once per hour.
+  uint32_t hour_rules = 0;  // curtailment rules in force this month and hour
+  bool crew_here = false;
+  int remaining = 0;   // required cells not yet full
+  int tests_open = 0;  // manual-test cells not yet full
   // First step at which the loop must look at the deadline, the horizon or a
   // completed matrix (one comparison per step instead of three).
   int64_t checkpoint = 0;
-  bool high_wind_stop = false;
-  int remaining = 0;       // required cells not yet full
   int64_t turbine_up_steps = 0, daq_up_steps = 0, valid_sector_steps = 0;
+  int64_t curtailed_steps = 0;
+  double speed_sum_ms = 0;
 };
 
 class RunLoop {
@@ -62,8 +74,13 @@ class RunLoop {
         ti_engine_(MakeRunEngine(seed ^ kTiSalt, run)),
         turbine_engine_(MakeRunEngine(seed ^ kTurbineSalt, run)),
         daq_engine_(MakeRunEngine(seed ^ kDaqSalt, run)),
-        turbine_(m.turbine_outages, &turbine_engine_),
-        daq_(m.daq_outages, &daq_engine_),
+        turbine_(m.turbine_outages, &turbine_engine_, m.day_month.data(),
+                 static_cast<int64_t>(m.day_month.size())),
+        daq_(m.daq_outages, &daq_engine_, m.day_month.data(),
+             static_cast<int64_t>(m.day_month.size())),
+        planned_turbine_(m.planned_turbine),
+        planned_daq_(m.planned_daq),
+        last_test_(m.manual_tests.size(), INT64_MIN / 2),
         out_(out) {}
 
   void Run();
@@ -73,10 +90,15 @@ class RunLoop {
   void DrawYearFactors();
   void Step(int64_t step, double scale, RunState& s, Engine& weather);
   void NewDirection(uint64_t bits, RunState& s) const;
+  uint32_t DirectionRules(int sector, double direction_u) const;
   void UpdateOutages(int64_t step, RunState& s);
+  Curtail CurtailmentAt(double speed_ms, uint32_t rules) const;
+  void OnTransition(bool producing, double speed_ms, bool valid, int64_t step, RunState& s);
+  bool TryManualTest(double speed_ms, bool valid, int64_t step, RunState& s);
+  void CountEvent(int type, double speed_ms, int64_t step, RunState& s);
   int CellOf(int state, double speed_ms, int64_t step, RunState& s);
   void Count(int cell, int64_t step, RunState& s);
-  void Stop(int64_t steps, int64_t turbine_up, int64_t daq_up, int64_t valid_sector);
+  void Stop(int64_t steps, const RunState& s);
   int64_t NextCheckpoint(int64_t step, int remaining);
 
   const CompiledModel& m_;
@@ -84,6 +106,8 @@ class RunLoop {
   Engine ti_engine_;  // TI's latent series draws only where a record needs it
   Engine turbine_engine_, daq_engine_;
   RenewalProcess turbine_, daq_;
+  OutageWindows planned_turbine_, planned_daq_;
+  std::vector<int64_t> last_test_;  // per manual test: step it was last done
   ZigguratNormal normal_;
   RunResult* out_;
   std::vector<double> year_factor_;  // per campaign year
@@ -106,6 +130,8 @@ RunState RunLoop::Start(uint64_t direction_bits, double z0) {
   s.z = z0;
   s.x_ti = normal_(ti_engine_);
   s.remaining = m_.required_cells;
+  s.tests_open = static_cast<int>(
+      std::count(m_.manual_test_cell.begin(), m_.manual_test_cell.end(), 1));
   DrawYearFactors();
   return s;
 }
@@ -114,6 +140,7 @@ inline void RunLoop::Count(int cell, int64_t step, RunState& s) {
   const uint32_t n = ++out_->count_at_end[cell];
   if (n != m_.required[cell]) return;
   out_->full_step[cell] = step + 1;
+  s.tests_open -= m_.manual_test_cell[cell];
   if (m_.optional[cell]) return;
   if (--s.remaining == 0) {
     out_->completion_step = step + 1;
@@ -135,6 +162,18 @@ inline int RunLoop::CellOf(int state, double speed_ms, int64_t step, RunState& s
   return t < 0 ? -1 : g.cell_index[w * ti_bins + t];
 }
 
+uint32_t RunLoop::DirectionRules(int sector, double direction_u) const {
+  const double direction_deg = (sector - 0.5 + direction_u) * m_.sector_width_deg;
+  uint32_t mask = 0;
+  for (size_t r = 0; r < m_.curtailment.size(); ++r) {
+    const std::vector<AngleRange>& dirs = m_.curtailment[r].directions;
+    bool inside = dirs.empty();
+    for (const AngleRange& a : dirs) inside = inside || AngleRangeContains(a, direction_deg);
+    if (inside) mask |= 1u << r;
+  }
+  return mask;
+}
+
 // A new draw of the sector (even of the same one) is a new direction in it.
 // Both uniforms come from one 64-bit word.
 inline void RunLoop::NewDirection(uint64_t bits, RunState& s) const {
@@ -143,12 +182,67 @@ inline void RunLoop::NewDirection(uint64_t bits, RunState& s) const {
   s.sector_scale_ms = m_.sector_scale_ms[s.sector];
   s.transform = &m_.speed_transform[s.sector];
   s.sector_ok = InSpans(m_.sector_valid_spans[s.sector], s.direction_u);
+  if (!m_.curtailment.empty()) s.direction_rules = DirectionRules(s.sector, s.direction_u);
 }
 
-inline void RunLoop::UpdateOutages(int64_t step, RunState& s) {
-  s.turbine_up = turbine_.UpAt(step);
-  s.daq_up = daq_.UpAt(step);
-  s.next_outage_step = std::min(turbine_.NextChangeStep(), daq_.NextChangeStep());
+void RunLoop::UpdateOutages(int64_t step, RunState& s) {
+  const bool turbine_random_up = turbine_.UpAt(step);
+  const bool daq_random_up = daq_.UpAt(step);
+  s.turbine_up = turbine_random_up && !planned_turbine_.InAt(step);
+  s.daq_up = daq_random_up && !planned_daq_.InAt(step);
+  s.next_outage_step =
+      std::min({turbine_.NextChangeStep(), daq_.NextChangeStep(),
+                planned_turbine_.NextChangeStep(), planned_daq_.NextChangeStep()});
+}
+
+// Stop wins over reduce when several rules apply.
+Curtail RunLoop::CurtailmentAt(double speed_ms, uint32_t rules) const {
+  Curtail result = kNotCurtailed;
+  for (size_t r = 0; rules != 0; ++r, rules >>= 1) {
+    if (!(rules & 1u)) continue;
+    const CompiledCurtailment& c = m_.curtailment[r];
+    if (speed_ms < c.wind_lo_ms || speed_ms >= c.wind_hi_ms) continue;
+    if (!c.reduce) return kStop;
+    result = kReduce;
+  }
+  return result;
+}
+
+inline void RunLoop::CountEvent(int type, double speed_ms, int64_t step, RunState& s) {
+  const EventCells& e = m_.events[type];
+  const int i = e.wind.Find(speed_ms);
+  if (i >= 0) Count(e.cells[i], step, s);
+}
+
+// Production started or ended. A start is a start-up whatever stopped the
+// turbine before; an end is a normal stop unless a fault took the turbine out.
+void RunLoop::OnTransition(bool producing, double speed_ms, bool valid, int64_t step,
+                           RunState& s) {
+  if (s.prev_producing >= 0 && valid) {
+    const int type =
+        producing ? m_.start_up_event : (s.turbine_up ? m_.normal_stop_event : -1);
+    if (type >= 0) CountEvent(type, speed_ms, step, s);
+  }
+  s.prev_producing = producing ? 1 : 0;
+}
+
+// The crew is on site, the turbine produces normally and the record would be
+// valid but for the quality check: do the first test whose wind window holds,
+// whose interval has passed and whose cell at this speed is not yet full.
+bool RunLoop::TryManualTest(double speed_ms, bool valid, int64_t step, RunState& s) {
+  for (size_t t = 0; t < m_.manual_tests.size(); ++t) {
+    const CompiledManualTest& test = m_.manual_tests[t];
+    if (speed_ms < test.wind_lo_ms || speed_ms >= test.wind_hi_ms) continue;
+    if (step - last_test_[t] < test.min_interval_steps) continue;
+    const EventCells& e = m_.events[test.event_type];
+    const int i = e.wind.Find(speed_ms);
+    if (i < 0 || out_->count_at_end[e.cells[i]] >= m_.required[e.cells[i]]) continue;
+    last_test_[t] = step;
+    if (valid) Count(e.cells[i], step, s);
+    s.prev_producing = 0;  // the test stopped the turbine: next comes a start-up
+    return true;
+  }
+  return false;
 }
 
 inline void RunLoop::Step(int64_t step, double scale, RunState& s, Engine& weather) {
@@ -160,6 +254,7 @@ inline void RunLoop::Step(int64_t step, double scale, RunState& s, Engine& weath
   if ((r1 >> 32) >= m_.keep_threshold) NewDirection(SplitMix64(r1), s);
   s.z = m_.wind_ar1.Next(s.z, e_z);
   const double speed = s.sector_scale_ms * scale * (*s.transform)(s.z);
+  s.speed_sum_ms += speed;
 
   // Turbine state with cut-out hysteresis.
   if (speed >= m_.cut_out_ms) {
@@ -168,14 +263,26 @@ inline void RunLoop::Step(int64_t step, double scale, RunState& s, Engine& weath
     s.high_wind_stop = false;
   }
   if (step >= s.next_outage_step) UpdateOutages(step, s);
-  const bool turbine_up = s.turbine_up;
-  s.turbine_up_steps += turbine_up;
+  s.turbine_up_steps += s.turbine_up;
   s.daq_up_steps += s.daq_up;
   s.valid_sector_steps += s.sector_ok;
-  if (!s.daq_up || !s.sector_ok || (r1 & 0xFFFFFFFFULL) < m_.reject_threshold) return;
-  const bool producing = turbine_up && !s.high_wind_stop && speed >= m_.cut_in_ms;
-  if (!producing && !turbine_up && !m_.parked_counts_during_outage) return;
-  const int cell = CellOf(producing ? 0 : 1, speed, step, s);
+  const uint32_t rules = s.hour_rules & s.direction_rules;
+  const Curtail curtail = rules != 0 ? CurtailmentAt(speed, rules) : kNotCurtailed;
+  s.curtailed_steps += curtail != kNotCurtailed;
+
+  const bool producing = s.turbine_up && !s.high_wind_stop && speed >= m_.cut_in_ms &&
+                         curtail != kStop;
+  const bool valid =
+      s.daq_up && s.sector_ok && (r1 & 0xFFFFFFFFULL) >= m_.reject_threshold;
+  if (producing != (s.prev_producing == 1)) OnTransition(producing, speed, valid, step, s);
+  if (s.tests_open > 0 && s.crew_here && producing && curtail == kNotCurtailed &&
+      s.daq_up && s.sector_ok && TryManualTest(speed, valid, step, s)) {
+    return;  // a test record is a transient, not a production record
+  }
+  if (!valid) return;
+  if (!producing && !s.turbine_up && !m_.parked_counts_during_outage) return;
+  const int state = producing ? (curtail == kReduce ? 2 : 0) : 1;
+  const int cell = CellOf(state, speed, step, s);
   if (cell >= 0) Count(cell, step, s);
 }
 
@@ -199,20 +306,22 @@ void RunLoop::Run() {
   int64_t step = 0;
   const int64_t days = static_cast<int64_t>(m_.day_month.size());
   for (int64_t day = 0; day < days; ++day) {
-    const double day_scale =
-        m_.monthly_factors[m_.day_month[day]] * year_factor_[m_.day_year[day]];
+    const int month = m_.day_month[day];
+    const double day_scale = m_.monthly_factors[month] * year_factor_[m_.day_year[day]];
     for (int hour = 0; hour < 24; ++hour) {
       const double scale = day_scale * m_.hourly_factors[hour];
+      s.hour_rules = m_.curtail_time_mask[month][hour];
+      s.crew_here = m_.day_crew[day] && ((m_.crew_hour_mask >> hour) & 1u);
       for (int k = 0; k < kStepsPerHour; ++k, ++step) {
         if (step >= s.checkpoint) {
           s.checkpoint = NextCheckpoint(step, s.remaining);
-          if (s.checkpoint < 0) return Stop(step, s.turbine_up_steps, s.daq_up_steps, s.valid_sector_steps);
+          if (s.checkpoint < 0) return Stop(step, s);
         }
         Step(step, scale, s, weather);
       }
     }
   }
-  Stop(step, s.turbine_up_steps, s.daq_up_steps, s.valid_sector_steps);
+  Stop(step, s);
 }
 
 // The next step the loop must stop at, or -1 when the run is over. Takes the
@@ -227,12 +336,13 @@ int64_t RunLoop::NextCheckpoint(int64_t step, int remaining) {
   return deadline_passed_ ? m_.horizon_steps : std::min(m_.deadline_steps, m_.horizon_steps);
 }
 
-void RunLoop::Stop(int64_t steps, int64_t turbine_up, int64_t daq_up,
-                   int64_t valid_sector) {
+void RunLoop::Stop(int64_t steps, const RunState& s) {
   out_->simulated_steps = steps;
-  out_->turbine_up_steps = turbine_up;
-  out_->daq_up_steps = daq_up;
-  out_->valid_sector_steps = valid_sector;
+  out_->turbine_up_steps = s.turbine_up_steps;
+  out_->daq_up_steps = s.daq_up_steps;
+  out_->valid_sector_steps = s.valid_sector_steps;
+  out_->curtailed_steps = s.curtailed_steps;
+  out_->speed_sum_ms = s.speed_sum_ms;
 }
 
 }  // namespace

@@ -1,0 +1,159 @@
+#include "planner/disturbed_sector.h"
+
+#include <algorithm>
+#include <cmath>
+#include <cstdio>
+#include <utility>
+
+namespace planner {
+namespace {
+
+constexpr double kPi = 3.14159265358979323846;
+// Annex A's formula is given for 2 <= L/D <= 20.
+constexpr double kMinRatio = 2.0;
+constexpr double kMaxRatio = 20.0;
+// Pieces narrower than this (rounding left-overs) are dropped.
+constexpr double kMinPieceDeg = 1e-9;
+
+using Interval = std::pair<double, double>;  // [first, second] within [0, 360]
+
+double Wrap360(double deg) {
+  const double r = std::fmod(deg, 360.0);
+  return r < 0.0 ? r + 360.0 : r;
+}
+
+std::string Ratio(double x) {
+  char buf[32];
+  std::snprintf(buf, sizeof buf, "%.1f", x);
+  return buf;
+}
+
+// Sorted, merged intervals covering the union of `ranges`.
+std::vector<Interval> UnionOf(const std::vector<AngleRange>& ranges) {
+  std::vector<Interval> pieces;
+  for (const AngleRange& r : ranges) {
+    const double width = AngleRangeWidth(r);
+    if (width <= 0.0) continue;
+    const double from = width >= 360.0 ? 0.0 : Wrap360(r.from_deg);
+    if (from + width <= 360.0) {
+      pieces.push_back({from, from + width});
+    } else {
+      pieces.push_back({from, 360.0});
+      pieces.push_back({0.0, from + width - 360.0});
+    }
+  }
+  std::sort(pieces.begin(), pieces.end());
+  std::vector<Interval> merged;
+  for (const Interval& p : pieces) {
+    if (!merged.empty() && p.first <= merged.back().second) {
+      merged.back().second = std::max(merged.back().second, p.second);
+    } else {
+      merged.push_back(p);
+    }
+  }
+  return merged;
+}
+
+// a minus b; both sorted and merged.
+std::vector<Interval> Subtract(const std::vector<Interval>& a,
+                               const std::vector<Interval>& b) {
+  std::vector<Interval> out;
+  for (Interval piece : a) {
+    for (const Interval& cut : b) {
+      if (cut.second <= piece.first || cut.first >= piece.second) continue;
+      if (cut.first > piece.first) out.push_back({piece.first, cut.first});
+      piece.first = std::max(piece.first, cut.second);
+      if (piece.first >= piece.second) break;
+    }
+    if (piece.second - piece.first > kMinPieceDeg) out.push_back(piece);
+  }
+  out.erase(std::remove_if(out.begin(), out.end(),
+                           [](const Interval& p) {
+                             return p.second - p.first <= kMinPieceDeg;
+                           }),
+            out.end());
+  return out;
+}
+
+// Back to ranges: a piece ending at 360 and one starting at 0 are one range
+// through north (it sorts by its start, so it comes last).
+std::vector<AngleRange> ToRanges(const std::vector<Interval>& pieces) {
+  std::vector<AngleRange> ranges;
+  if (pieces.size() == 1 && pieces[0].first <= 0.0 && pieces[0].second >= 360.0) {
+    return {AngleRange{0.0, 360.0}};
+  }
+  const bool wraps = pieces.size() >= 2 && pieces.front().first <= 0.0 &&
+                     pieces.back().second >= 360.0;
+  const std::size_t first = wraps ? 1 : 0;
+  const std::size_t last = wraps ? pieces.size() - 1 : pieces.size();
+  for (std::size_t i = first; i < last; ++i) {
+    ranges.push_back(AngleRange{pieces[i].first, pieces[i].second});
+  }
+  if (wraps) ranges.push_back(AngleRange{pieces.back().first, pieces.front().second});
+  return ranges;
+}
+
+// The sector of something of (equivalent) rotor diameter d_m at distance_m on
+// bearing_deg, with the range rules of docs/methods.md ("Valid sector from the
+// layout"): below L/D 2 the formula is extended (wider than at 2), above 20
+// nothing is excluded (an empty range that still carries its reason).
+DisturbedSector SectorAround(const std::string& reason_prefix, const char* ratio_name,
+                             double bearing_deg, double distance_m, double d_m) {
+  const double ratio = distance_m / d_m;
+  DisturbedSector s;
+  s.reason = reason_prefix + " (" + ratio_name + " " + Ratio(ratio) + ")";
+  const double bearing = Wrap360(bearing_deg);
+  if (ratio > kMaxRatio) {
+    s.range = AngleRange{bearing, bearing};
+    s.note = std::string(ratio_name) + " above 20, beyond the formula's range: not excluded";
+    return s;
+  }
+  const double alpha = DisturbedSectorWidthDeg(ratio);
+  s.range = AngleRange{Wrap360(bearing - alpha / 2.0), Wrap360(bearing + alpha / 2.0)};
+  if (ratio < kMinRatio) {
+    s.note = std::string(ratio_name) +
+             " below 2, closer than the formula's range: formula extended (wider "
+             "than at 2); agree this sector with the certification body";
+  }
+  return s;
+}
+
+}  // namespace
+
+double DisturbedSectorWidthDeg(double l_over_d) {
+  return 1.3 * std::atan(2.5 / l_over_d + 0.15) * 180.0 / kPi + 10.0;
+}
+
+double ObstacleEquivalentDiameterM(const Obstacle& o) {
+  return 2.0 * o.height_m * o.width_m / (o.height_m + o.width_m);
+}
+
+std::vector<DisturbedSector> DisturbedSectors(const SiteLayout& layout) {
+  std::vector<DisturbedSector> sectors;
+  for (const NeighbourTurbine& n : layout.neighbours) {
+    sectors.push_back(SectorAround("wake of " + n.name, "L/D", n.bearing_deg,
+                                   n.distance_m, n.rotor_diameter_m));
+  }
+  for (const Obstacle& o : layout.obstacles) {
+    const double d_e = ObstacleEquivalentDiameterM(o);
+    char diameter[48];
+    std::snprintf(diameter, sizeof diameter, ", D_e %.1f m", d_e);
+    DisturbedSector s =
+        SectorAround("obstacle " + o.name, "L/D_e", o.bearing_deg, o.distance_m, d_e);
+    s.reason.insert(s.reason.size() - 1, diameter);
+    sectors.push_back(s);
+  }
+  for (const AngleRange& r : layout.exclusions) {
+    sectors.push_back(DisturbedSector{"manual exclusion", r, ""});
+  }
+  return sectors;
+}
+
+std::vector<AngleRange> ValidSectorsFromLayout(const SiteLayout& layout,
+                                               const std::vector<AngleRange>& allowed) {
+  std::vector<AngleRange> disturbed;
+  for (const DisturbedSector& s : DisturbedSectors(layout)) disturbed.push_back(s.range);
+  return ToRanges(Subtract(UnionOf(allowed), UnionOf(disturbed)));
+}
+
+}  // namespace planner

@@ -1,0 +1,131 @@
+// Compiling the plan's operations for the run loop: planned outages,
+// curtailment rules, event cells, manual tests and the crew calendar.
+#include <algorithm>
+#include <cmath>
+#include <string>
+
+#include "sim/compiled_model.h"
+
+namespace planner {
+
+uint32_t HourMask(const HourWindow& w) {
+  uint32_t mask = 0;
+  const auto add = [&mask](int from, int to) {
+    for (int h = from; h < to; ++h) mask |= 1u << h;
+  };
+  if (w.from_hour < w.to_hour) {
+    add(w.from_hour, w.to_hour);
+  } else if (w.from_hour > w.to_hour) {  // wraps past midnight
+    add(w.from_hour, 24);
+    add(0, w.to_hour);
+  }
+  return mask;
+}
+
+namespace {
+
+std::vector<StepInterval> Merge(std::vector<StepInterval> v) {
+  std::sort(v.begin(), v.end(),
+            [](const StepInterval& a, const StepInterval& b) { return a.from < b.from; });
+  std::vector<StepInterval> out;
+  for (const StepInterval& i : v) {
+    if (!out.empty() && i.from <= out.back().to) {
+      out.back().to = std::max(out.back().to, i.to);
+    } else {
+      out.push_back(i);
+    }
+  }
+  return out;
+}
+
+void CompilePlannedOutages(const Plan& plan, CompiledModel* m) {
+  std::vector<StepInterval> turbine, daq;
+  for (const PlannedOutage& o : plan.planned_outages) {
+    const StepInterval steps{DaysBetween(plan.start, o.from) * kStepsPerDay,
+                             DaysBetween(plan.start, o.to) * kStepsPerDay};
+    if (steps.to <= 0 || steps.from >= steps.to) continue;
+    if (o.turbine) turbine.push_back(steps);
+    if (o.daq) daq.push_back(steps);
+  }
+  m->planned_turbine = Merge(turbine);
+  m->planned_daq = Merge(daq);
+}
+
+void CompileCurtailment(const Plan& plan, CompiledModel* m) {
+  const size_t rules = std::min<size_t>(plan.curtailment.size(), kMaxCurtailmentRules);
+  for (size_t r = 0; r < rules; ++r) {
+    const CurtailmentRule& rule = plan.curtailment[r];
+    m->curtailment.push_back({rule.wind_lo_ms, rule.wind_hi_ms,
+                              rule.action == CurtailmentRule::Action::kReduce,
+                              rule.directions});
+    const uint32_t hours = HourMask(rule.hours);
+    for (int month = 1; month <= 12; ++month) {
+      const bool in_month = rule.months.empty() ||
+                            std::find(rule.months.begin(), rule.months.end(), month) !=
+                                rule.months.end();
+      if (!in_month) continue;
+      for (int h = 0; h < 24; ++h) {
+        if (hours & (1u << h)) m->curtail_time_mask[month - 1][h] |= 1u << r;
+      }
+    }
+  }
+}
+
+void CompileEvents(const Plan& plan, CompiledModel* m) {
+  const CaptureMatrix& matrix = plan.matrix;
+  m->events.resize(matrix.event_types.size());
+  m->manual_test_cell.assign(matrix.cells.size(), 0);
+  for (size_t e = 0; e < matrix.event_types.size(); ++e) {
+    const std::string& name = matrix.event_types[e];
+    if (name == kStartUpEvent) m->start_up_event = static_cast<int>(e);
+    if (name == kNormalStopEvent) m->normal_stop_event = static_cast<int>(e);
+    std::vector<std::pair<Bin, int>> bins;
+    for (size_t c = 0; c < matrix.cells.size(); ++c) {
+      if (matrix.cells[c].event == static_cast<int>(e)) {
+        bins.push_back({matrix.cells[c].wind_ms, static_cast<int>(c)});
+      }
+    }
+    std::sort(bins.begin(), bins.end(),
+              [](const auto& a, const auto& b) { return a.first.lo < b.first.lo; });
+    std::vector<Bin> edges;
+    for (const auto& [bin, cell] : bins) {
+      edges.push_back(bin);
+      m->events[e].cells.push_back(cell);
+    }
+    m->events[e].wind = BinLookup(edges);
+  }
+  for (const ManualTest& t : plan.manual_tests) {
+    const auto it = std::find(matrix.event_types.begin(), matrix.event_types.end(), t.name);
+    if (it == matrix.event_types.end()) continue;  // no cells: never needed
+    CompiledManualTest ct;
+    ct.event_type = static_cast<int>(it - matrix.event_types.begin());
+    ct.wind_lo_ms = t.wind_lo_ms;
+    ct.wind_hi_ms = t.wind_hi_ms;
+    ct.min_interval_steps = static_cast<int64_t>(std::ceil(t.min_interval_h * kStepsPerHour));
+    m->events[ct.event_type].manual = true;
+    for (int cell : m->events[ct.event_type].cells) m->manual_test_cell[cell] = 1;
+    m->manual_tests.push_back(ct);
+  }
+}
+
+void CompileCrew(const Plan& plan, CompiledModel* m) {
+  m->crew_hour_mask = HourMask(plan.crew.hours);
+  const int64_t first = DaysFromCivil(plan.start);
+  m->day_crew.resize(m->day_month.size());
+  for (size_t d = 0; d < m->day_crew.size(); ++d) {
+    // 1970-01-01 was a Thursday (weekday 4 with Sunday = 0).
+    const int64_t weekday = ((first + static_cast<int64_t>(d)) % 7 + 11) % 7;
+    m->day_crew[d] = plan.crew.weekdays[weekday] ? 1 : 0;
+  }
+}
+
+}  // namespace
+
+void CompileOperations(const Plan& plan, CompiledModel* m) {
+  CompilePlannedOutages(plan, m);
+  CompileCurtailment(plan, m);
+  CompileEvents(plan, m);
+  CompileCrew(plan, m);
+}
+
+}  // namespace planner
