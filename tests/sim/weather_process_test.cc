@@ -47,10 +47,40 @@ TEST(WeatherProcessTest, LatentAr1LagAutocorrelationIsPhiToTheK) {
   }
 }
 
+// Jumping the AR(1) k steps at once is exact for a Gaussian AR(1):
+// x_{t+k} | x_t ~ N(phi^k x_t, 1 - phi^2k) (Box & Jenkins). Checked two ways:
+// the jump's coefficients against pow(), and the sample correlation of
+// (x, jumped x) against phi^k within 4 standard errors ((1 - rho^2)/sqrt(n)).
+TEST(WeatherProcessTest, Ar1SkipperJumpsExactlyKSteps) {
+  const double tau_h = 6.0;
+  const Ar1Skipper skip(tau_h);
+  const double phi = Ar1Phi(tau_h);
+  for (int64_t k : {0, 1, 5, 36, 1023, 1024, 5000}) {
+    const double p = std::pow(phi, static_cast<double>(k));
+    EXPECT_NEAR(skip.Advance(1.0, k, 0.0), p, 1e-12) << k;
+    EXPECT_NEAR(skip.Advance(0.0, k, 1.0), std::sqrt(1 - p * p), 1e-12) << k;
+  }
+  Engine engine = MakeRunEngine(3, 3);
+  boost::random::normal_distribution<double> normal;
+  const int n = 200000;
+  for (int64_t k : {6, 72}) {
+    double sxy = 0, sxx = 0, syy = 0;
+    for (int i = 0; i < n; ++i) {
+      const double x = normal(engine);
+      const double y = skip.Advance(x, k, normal(engine));
+      sxy += x * y, sxx += x * x, syy += y * y;
+    }
+    const double rho = std::pow(phi, static_cast<double>(k));
+    EXPECT_NEAR(sxy / std::sqrt(sxx * syy), rho, 4 * (1 - rho * rho) / std::sqrt(n)) << k;
+  }
+}
+
 TEST(WeatherProcessTest, ZeroTimeScaleGivesIndependentRecords) {
   const LatentAr1 ar(0.0);
   EXPECT_EQ(ar.phi, 0.0);
   EXPECT_EQ(ar.innovation, 1.0);
+  const Ar1Skipper skip(0.0);
+  EXPECT_EQ(skip.Advance(2.0, 1, 0.5), 0.5);  // nothing kept after one step
 }
 
 // The chain keeps its sector with probability r, else draws from the

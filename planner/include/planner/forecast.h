@@ -25,6 +25,20 @@ struct CellForecast {
   std::optional<double> weeks_to_full_p50;
   std::optional<double> weeks_to_full_p90;
   double p_last_to_fill = 0;  // share of all runs in which it filled last
+
+  // What relaxing this cell buys, from the same runs: weeks saved at P50 /
+  // P80 of completion if the cell were optional, or if its minimum were
+  // lowered to ForecastSummary::relaxed_share of it. nullopt where the
+  // quantile is not reached with or without the change. Zero for optional
+  // cells.
+  std::optional<double> saved_p50_if_optional, saved_p80_if_optional;
+  std::optional<double> saved_p50_if_relaxed, saved_p80_if_relaxed;
+};
+
+// Share of required cells full at a week, over the runs.
+struct FillPoint {
+  double week = 0;
+  double p10 = 0, p50 = 0, p90 = 0;
 };
 
 struct ForecastSummary {
@@ -44,6 +58,13 @@ struct ForecastSummary {
   std::vector<CellForecast> cells;  // in matrix order
   int bottleneck_cell = -1;         // most often last to fill, -1 if none
 
+  // Completion weeks of every run, ascending; +infinity = not complete.
+  std::vector<double> completion_weeks;
+  // Share of required cells full, week by week from 0 to the last simulated
+  // week (runs that stopped count as they stopped).
+  std::vector<FillPoint> fill_curve;
+  double relaxed_share = 0.8;  // see CellForecast::saved_*_if_relaxed
+
   // Shares of simulated time (diagnostics that explain the answer).
   double turbine_availability = 0;
   double daq_availability = 0;
@@ -54,7 +75,8 @@ struct ForecastSummary {
 
 ForecastSummary SummarizeForecast(const CaptureMatrix& matrix, int64_t deadline_steps,
                                   int64_t horizon_steps,
-                                  const std::vector<RunResult>& runs, uint64_t seed);
+                                  const std::vector<RunResult>& runs, uint64_t seed,
+                                  double relaxed_share = 0.8);
 
 // Records -> weeks.
 inline double StepsToWeeks(int64_t steps) { return static_cast<double>(steps) / 1008.0; }

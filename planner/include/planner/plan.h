@@ -97,6 +97,13 @@ struct ManualTest {
   double min_interval_h = 4.0;  // between two tests of this kind
 };
 
+// What the campaign costs, for comparing sites and scenarios.
+struct CostModel {
+  double weekly = 0.0;        // running cost per week of campaign, >= 0
+  double mobilisation = 0.0;  // fixed cost (set-up and removal), >= 0
+  std::string currency = "EUR";
+};
+
 struct Plan {
   std::string name;
   std::string source_file;  // path the plan was read from (for messages)
@@ -130,6 +137,7 @@ struct Plan {
   double quality_reject_fraction = 0.0;
 
   CaptureMatrix matrix;
+  CostModel cost;
 };
 
 // Steps from start to deadline, and to the horizon.

@@ -40,6 +40,9 @@ struct RunResult {
   std::vector<int64_t> full_step;
   // Per cell: valid records when the run stopped.
   std::vector<uint32_t> count_at_end;
+  // Per cell: records elapsed when the cell reached the relaxed minimum
+  // (SimulationOptions::relaxed_share of its minimum, at least 1), -1 if not.
+  std::vector<int64_t> relaxed_full_step;
   int64_t simulated_steps = 0;
   // Diagnostics over the simulated steps (for tests and reports).
   int64_t turbine_up_steps = 0;
@@ -51,10 +54,16 @@ struct RunResult {
 
 struct CompiledModel;  // lookup tables built once per plan (sim/compiled_model.h)
 
+struct SimulationOptions {
+  // Share of each cell's minimum whose reaching time is also recorded, for
+  // "what if this minimum were lowered" (0 < share <= 1). Default 0.8.
+  double relaxed_share = 0.8;
+};
+
 class Simulator {
  public:
   // plan must have been validated (readers do this).
-  explicit Simulator(const Plan& plan);
+  explicit Simulator(const Plan& plan, const SimulationOptions& options = {});
   ~Simulator();
   Simulator(const Simulator&) = delete;
   Simulator& operator=(const Simulator&) = delete;
@@ -66,6 +75,7 @@ class Simulator {
   int cell_count() const;
   int64_t deadline_steps() const;
   int64_t horizon_steps() const;
+  double relaxed_share() const;
 
  private:
   std::unique_ptr<const CompiledModel> model_;

@@ -126,8 +126,9 @@ uint64_t ProbabilityThreshold(double p) {
 
 }  // namespace
 
-CompiledModel CompileModel(const Plan& plan) {
+CompiledModel CompileModel(const Plan& plan, double relaxed_share) {
   CompiledModel m;
+  m.relaxed_share = relaxed_share;
   CompileWeather(plan.site, plan.valid_sectors, &m);
   m.cut_in_ms = plan.turbine.cut_in_ms;
   m.cut_out_ms = plan.turbine.cut_out_ms;
@@ -139,6 +140,10 @@ CompiledModel CompileModel(const Plan& plan) {
   m.keep_threshold = ProbabilityThreshold(m.sector_chain.keep_probability);
   m.reject_threshold = ProbabilityThreshold(m.quality_reject);
   CompileMatrix(plan.matrix, &m);
+  for (uint32_t r : m.required) {
+    const double relaxed = std::ceil(relaxed_share * r - 1e-9);
+    m.relaxed_required.push_back(std::max<uint32_t>(1, static_cast<uint32_t>(relaxed)));
+  }
   CompileCalendar(plan, &m);
   CompileOperations(plan, &m);
   return m;

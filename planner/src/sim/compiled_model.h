@@ -143,6 +143,8 @@ struct CompiledModel {
   // Matrix.
   std::array<CompiledGrid, kOperatingStateCount> grids;
   std::vector<uint32_t> required;  // per cell
+  std::vector<uint32_t> relaxed_required;  // per cell: ceil(relaxed_share x required)
+  double relaxed_share = 0.8;
   std::vector<uint8_t> optional;   // per cell
   int required_cells = 0;
 
@@ -154,7 +156,7 @@ struct CompiledModel {
   int64_t horizon_steps = 0;
 };
 
-CompiledModel CompileModel(const Plan& plan);
+CompiledModel CompileModel(const Plan& plan, double relaxed_share = 0.8);
 
 // Parts of CompileModel for the plan's operations (compile_operations.cc):
 // planned outages, curtailment, events and manual tests, crew calendar.

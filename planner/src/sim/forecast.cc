@@ -4,6 +4,8 @@
 #include <cmath>
 #include <limits>
 
+#include "sim/forecast_parts.h"
+
 namespace planner {
 namespace {
 
@@ -48,6 +50,7 @@ void SummarizeCompletion(const std::vector<RunResult>& runs, int64_t deadline_st
   }
 
   std::sort(weeks.begin(), weeks.end());
+  s->completion_weeks = weeks;
   s->p10.p = 0.10;
   s->p50.p = 0.50;
   s->p80.p = 0.80;
@@ -130,7 +133,8 @@ void SummarizeDiagnostics(const std::vector<RunResult>& runs, ForecastSummary* s
 
 ForecastSummary SummarizeForecast(const CaptureMatrix& matrix, int64_t deadline_steps,
                                   int64_t horizon_steps,
-                                  const std::vector<RunResult>& runs, uint64_t seed) {
+                                  const std::vector<RunResult>& runs, uint64_t seed,
+                                  double relaxed_share) {
   ForecastSummary s;
   s.runs = static_cast<long>(runs.size());
   s.seed = seed;
@@ -151,6 +155,9 @@ ForecastSummary SummarizeForecast(const CaptureMatrix& matrix, int64_t deadline_
   }
 
   SummarizeDiagnostics(runs, &s);
+  s.relaxed_share = relaxed_share;
+  SummarizeSensitivity(matrix, runs, &s);
+  SummarizeFillCurve(matrix, runs, &s);
   return s;
 }
 

@@ -121,6 +121,7 @@ RunState RunLoop::Start(uint64_t direction_bits, double z0) {
   out_->count_at_deadline.assign(cells, 0);
   out_->count_at_end.assign(cells, 0);
   out_->full_step.assign(cells, -1);
+  out_->relaxed_full_step.assign(cells, -1);
   out_->completion_step = -1;
   out_->last_cell = -1;
   out_->simulated_steps = 0;
@@ -138,6 +139,7 @@ RunState RunLoop::Start(uint64_t direction_bits, double z0) {
 
 inline void RunLoop::Count(int cell, int64_t step, RunState& s) {
   const uint32_t n = ++out_->count_at_end[cell];
+  if (n == m_.relaxed_required[cell]) out_->relaxed_full_step[cell] = step + 1;
   if (n != m_.required[cell]) return;
   out_->full_step[cell] = step + 1;
   s.tests_open -= m_.manual_test_cell[cell];
@@ -347,8 +349,8 @@ void RunLoop::Stop(int64_t steps, const RunState& s) {
 
 }  // namespace
 
-Simulator::Simulator(const Plan& plan)
-    : model_(std::make_unique<CompiledModel>(CompileModel(plan))) {}
+Simulator::Simulator(const Plan& plan, const SimulationOptions& options)
+    : model_(std::make_unique<CompiledModel>(CompileModel(plan, options.relaxed_share))) {}
 
 Simulator::~Simulator() = default;
 
@@ -360,5 +362,6 @@ void Simulator::Run(uint64_t seed, uint64_t run_index, RunResult* out) const {
 int Simulator::cell_count() const { return static_cast<int>(model_->required.size()); }
 int64_t Simulator::deadline_steps() const { return model_->deadline_steps; }
 int64_t Simulator::horizon_steps() const { return model_->horizon_steps; }
+double Simulator::relaxed_share() const { return model_->relaxed_share; }
 
 }  // namespace planner
