@@ -2,6 +2,8 @@
 // (the way Ninja's output tests run the real program).
 #include <gtest/gtest.h>
 
+#include "cli/cli_runner.h"
+
 #include <cstdio>
 #include <filesystem>
 #include <fstream>
@@ -12,38 +14,12 @@
 namespace {
 
 namespace fs = std::filesystem;
+using fillcast_test::Outcome;
+using fillcast_test::ReadJson;
+using fillcast_test::RunFillcast;
 
-struct Outcome {
-  int exit_code = -1;
-  std::string output;  // stdout and stderr together
-};
-
-Outcome RunFillcast(const std::string& args) {
-  const std::string cmd = std::string(FILLCAST_BINARY) + " " + args + " 2>&1";
-  Outcome o;
-  FILE* pipe = popen(cmd.c_str(), "r");
-  if (pipe == nullptr) return o;
-  char buf[4096];
-  size_t n;
-  while ((n = fread(buf, 1, sizeof buf, pipe)) > 0) o.output.append(buf, n);
-  const int status = pclose(pipe);
-  o.exit_code = WIFEXITED(status) ? WEXITSTATUS(status) : -1;
-  return o;
-}
-
-std::string Demo() { return std::string(FILLCAST_SOURCE_DIR) + "/demo-site/plan.yaml"; }
-
-fs::path TempDir() {
-  fs::path dir = fs::temp_directory_path() /
-                 ("fillcast-cli-test-" + std::to_string(::getpid()));
-  fs::create_directories(dir);
-  return dir;
-}
-
-nlohmann::json ReadJson(const fs::path& p) {
-  std::ifstream in(p);
-  return nlohmann::json::parse(in);
-}
+std::string Demo() { return fillcast_test::SourcePath("demo-site/plan.yaml"); }
+fs::path TempDir() { return fillcast_test::TempDir("cli-test"); }
 
 TEST(ForecastCliTest, DemoForecastPrintsSummaryAndCautions) {
   const Outcome o = RunFillcast("forecast " + Demo() + " --runs 200 --seed 3");

@@ -23,6 +23,22 @@ struct MonteCarloOptions {
 std::vector<RunResult> RunMonteCarlo(const Simulator& sim, const MonteCarloOptions& options,
                                      ProgressSink* progress);
 
+// Runs until the 95 % confidence interval of the completion-time quantile p
+// (e.g. 0.8) is at most target_weeks wide, or max_runs is reached. Starts with
+// options.runs and doubles the count each round (runs already made are kept:
+// run i is always the same campaign, so the result equals one batch of the
+// final size). Incomplete runs count as +infinity; an interval that reaches
+// them is infinitely wide.
+struct PrecisionResult {
+  std::vector<RunResult> runs;
+  double ci_width_weeks = 0;  // width reached (+infinity if unbounded)
+  bool target_met = false;
+  int rounds = 0;
+};
+PrecisionResult RunToPrecision(const Simulator& sim, const MonteCarloOptions& options,
+                               double quantile, double target_weeks, int max_runs,
+                               ProgressSink* progress);
+
 // Threads actually used for `requested` (0 = hardware concurrency, >= 1).
 int EffectiveThreads(int requested);
 

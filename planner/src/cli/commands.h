@@ -16,6 +16,9 @@ namespace planner {
 using CommandAction = std::function<int()>;
 
 CommandAction AddForecastCommand(CLI::App& app);
+CommandAction AddCompareCommand(CLI::App& app);
+CommandAction AddStartSweepCommand(CLI::App& app);
+CommandAction AddSectorsCommand(CLI::App& app);
 
 // Exit codes.
 inline constexpr int kExitOk = 0;

@@ -14,11 +14,13 @@ constexpr int kMaxThreads = 1024;
 }  // namespace
 
 void AddRunOptions(CLI::App* cmd, RunOptionArgs* args) {
-  cmd->add_option("--runs", args->runs, "Simulated campaigns (default 2000)")
-      ->type_name("N");
+  cmd->add_option("--runs", args->runs, "Simulated campaigns")
+      ->type_name("N")
+      ->capture_default_str();
   cmd->add_option("--seed", args->seed,
-                  "Master seed; same seed, same answer for any thread count (default 20270301)")
-      ->type_name("S");
+                  "Master seed; same seed, same answer for any thread count")
+      ->type_name("S")
+      ->capture_default_str();
   cmd->add_option("--threads", args->threads, "Worker threads (default 0 = all cores)")
       ->type_name("T");
   cmd->add_flag("--quiet,-q", args->quiet,

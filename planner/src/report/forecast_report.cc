@@ -9,88 +9,16 @@
 
 #include "report/cautions.h"
 
+#include "report/report_numbers.h"
+#include "report/text_format.h"
+
 namespace planner {
 namespace {
 
 using Json = nlohmann::ordered_json;
 
-constexpr int kTextWidth = 100;
 // Widest cell label in the thin-cell table: its other columns take 58.
 constexpr size_t kMaxLabelWidth = 42;
-
-std::string Printf(const char* format, ...) __attribute__((format(printf, 1, 2)));
-std::string Printf(const char* format, ...) {
-  va_list args, copy;
-  va_start(args, format);
-  va_copy(copy, args);
-  const int size = std::vsnprintf(nullptr, 0, format, copy);
-  va_end(copy);
-  std::string out(size > 0 ? static_cast<size_t>(size) : 0, '\0');
-  if (size > 0) std::vsnprintf(&out[0], out.size() + 1, format, args);
-  va_end(args);
-  return out;
-}
-
-// Whole numbers without decimals, others with one.
-std::string Compact(double x) {
-  return x == std::floor(x) ? Printf("%.0f", x) : Printf("%.1f", x);
-}
-
-std::string Percent(double share) { return Printf("%.1f %%", 100.0 * share); }
-
-// Completion after `weeks` from 00:00 of the start date is done by 00:00 of
-// start + ceil(7 weeks) days, the same convention as the (exclusive)
-// deadline. The allowance keeps whole days from rounding up.
-Date DoneByDate(const Date& start, double weeks) {
-  const double days = weeks * 7.0;
-  return AddDays(start,
-                 static_cast<int64_t>(std::ceil(days - 1e-9 * std::max(1.0, days))));
-}
-
-std::string DoneBy(const Date& start, const std::optional<double>& weeks) {
-  return weeks ? FormatDate(DoneByDate(start, *weeks)) : std::string();
-}
-
-std::string WeeksText(const std::optional<double>& weeks, int width) {
-  return weeks ? Printf("%*.1f", width, *weeks) : Printf("%*s", width, "not reached");
-}
-
-std::string CiText(const QuantileEstimate& q) {
-  if (q.ci_lo && q.ci_hi) return Printf("%.1f - %.1f", *q.ci_lo, *q.ci_hi);
-  if (q.ci_hi) return Printf("up to %.1f", *q.ci_hi);
-  if (q.ci_lo) return Printf("from %.1f", *q.ci_lo);
-  return "not available";
-}
-
-// Word-wraps `text` to kTextWidth; the first line starts with `first`, the
-// others with as many spaces.
-std::string Wrap(const std::string& first, const std::string& text) {
-  const std::string indent(first.size(), ' ');
-  std::istringstream words(text);
-  std::string out = first, line_start = first, word;
-  size_t line_len = first.size();
-  bool line_empty = true;
-  while (words >> word) {
-    if (!line_empty && line_len + 1 + word.size() > static_cast<size_t>(kTextWidth)) {
-      out += "\n" + indent;
-      line_len = indent.size();
-      line_empty = true;
-    }
-    if (!line_empty) {
-      out += ' ';
-      ++line_len;
-    }
-    out += word;
-    line_len += word.size();
-    line_empty = false;
-  }
-  return out + "\n";
-}
-
-std::string FitLabel(std::string label, size_t width) {
-  if (label.size() > width) label = label.substr(0, width - 3) + "...";
-  return label;
-}
 
 // Situational notes on this particular result (the fixed cautions follow).
 std::vector<std::string> ResultNotes(const ForecastSummary& s) {
@@ -145,7 +73,7 @@ std::string TextCompletion(const Plan& plan, const ForecastSummary& s) {
       {"P10", &s.p10}, {"P50", &s.p50}, {"P80", &s.p80}, {"P90", &s.p90}};
   for (const auto& [name, q] : rows) {
     out += Printf("  %-6s %s   %-18s %s\n", name, WeeksText(q->value, 11).c_str(),
-                  CiText(*q).c_str(), DoneBy(plan.start, q->value).c_str());
+                  CiRangeText(*q).c_str(), DoneBy(plan.start, q->value).c_str());
   }
   if (s.mean_weeks) {
     const std::string se =

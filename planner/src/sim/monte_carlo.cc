@@ -3,7 +3,11 @@
 #include <algorithm>
 #include <atomic>
 #include <mutex>
+#include <limits>
 #include <thread>
+
+#include "planner/forecast.h"
+#include "planner/quantile.h"
 
 namespace planner {
 
@@ -36,6 +40,43 @@ std::vector<RunResult> RunMonteCarlo(const Simulator& sim, const MonteCarloOptio
   for (std::thread& t : pool) t.join();
   if (progress != nullptr) progress->Finish();
   return results;
+}
+
+namespace {
+
+double CompletionCiWidth(const std::vector<RunResult>& runs, double quantile) {
+  std::vector<double> weeks;
+  weeks.reserve(runs.size());
+  for (const RunResult& r : runs) {
+    weeks.push_back(r.completion_step < 0 ? std::numeric_limits<double>::infinity()
+                                          : StepsToWeeks(r.completion_step));
+  }
+  std::sort(weeks.begin(), weeks.end());
+  const QuantileEstimate q = EstimateQuantile(weeks, quantile);
+  if (!q.ci_lo || !q.ci_hi) return std::numeric_limits<double>::infinity();
+  return *q.ci_hi - *q.ci_lo;
+}
+
+}  // namespace
+
+PrecisionResult RunToPrecision(const Simulator& sim, const MonteCarloOptions& options,
+                               double quantile, double target_weeks, int max_runs,
+                               ProgressSink* progress) {
+  PrecisionResult result;
+  MonteCarloOptions batch = options;
+  batch.first_run = options.first_run;
+  batch.runs = std::min(options.runs, max_runs);
+  for (;;) {
+    std::vector<RunResult> more = RunMonteCarlo(sim, batch, progress);
+    for (RunResult& r : more) result.runs.push_back(std::move(r));
+    ++result.rounds;
+    result.ci_width_weeks = CompletionCiWidth(result.runs, quantile);
+    result.target_met = result.ci_width_weeks <= target_weeks;
+    const int have = static_cast<int>(result.runs.size());
+    if (result.target_met || have >= max_runs) return result;
+    batch.first_run = options.first_run + have;
+    batch.runs = std::min(have, max_runs - have);
+  }
 }
 
 }  // namespace planner

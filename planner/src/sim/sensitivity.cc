@@ -64,7 +64,7 @@ void SummarizeSensitivity(const CaptureMatrix& m, const std::vector<RunResult>& 
     const int cell = static_cast<int>(c);
     for (size_t i = 0; i < runs.size(); ++i) {
       const RunFills& f = fills[i];
-      const int64_t own = runs[i].full_step[c];
+      const int64_t own = c < runs[i].full_step.size() ? runs[i].full_step[c] : -1;
       const int unfilled_others = f.unfilled - (own < 0 ? 1 : 0);
       // Latest fill among the other required cells.
       const int64_t others = only_cell ? 0 : (f.latest_cell == cell ? f.second : f.latest);

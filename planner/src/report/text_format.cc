@@ -1,0 +1,74 @@
+#include "report/text_format.h"
+
+#include "report/report_numbers.h"
+
+#include <algorithm>
+#include <cmath>
+#include <cstdarg>
+#include <cstdio>
+#include <sstream>
+
+namespace planner {
+
+std::string Printf(const char* format, ...) {
+  va_list args, copy;
+  va_start(args, format);
+  va_copy(copy, args);
+  const int size = std::vsnprintf(nullptr, 0, format, copy);
+  va_end(copy);
+  std::string out(size > 0 ? static_cast<size_t>(size) : 0, '\0');
+  if (size > 0) std::vsnprintf(&out[0], out.size() + 1, format, args);
+  va_end(args);
+  return out;
+}
+
+std::string Compact(double x) {
+  return x == std::floor(x) ? Printf("%.0f", x) : Printf("%.1f", x);
+}
+
+std::string Percent(double share) { return Printf("%.1f %%", 100.0 * share); }
+
+std::string DoneBy(const Date& start, const std::optional<double>& weeks) {
+  return weeks ? FormatDate(DoneByDate(start, *weeks)) : std::string();
+}
+
+std::string WeeksText(const std::optional<double>& weeks, int width) {
+  return weeks ? Printf("%*.1f", width, *weeks) : Printf("%*s", width, "not reached");
+}
+
+std::string CiRangeText(const QuantileEstimate& q) {
+  if (q.ci_lo && q.ci_hi) return Printf("%.1f - %.1f", *q.ci_lo, *q.ci_hi);
+  if (q.ci_hi) return Printf("up to %.1f", *q.ci_hi);
+  if (q.ci_lo) return Printf("from %.1f", *q.ci_lo);
+  return "not available";
+}
+
+std::string Wrap(const std::string& first, const std::string& text) {
+  const std::string indent(first.size(), ' ');
+  std::istringstream words(text);
+  std::string out = first, line_start = first, word;
+  size_t line_len = first.size();
+  bool line_empty = true;
+  while (words >> word) {
+    if (!line_empty && line_len + 1 + word.size() > static_cast<size_t>(kTextWidth)) {
+      out += "\n" + indent;
+      line_len = indent.size();
+      line_empty = true;
+    }
+    if (!line_empty) {
+      out += ' ';
+      ++line_len;
+    }
+    out += word;
+    line_len += word.size();
+    line_empty = false;
+  }
+  return out + "\n";
+}
+
+std::string FitLabel(std::string label, size_t width) {
+  if (label.size() > width) label = label.substr(0, width - 3) + "...";
+  return label;
+}
+
+}  // namespace planner

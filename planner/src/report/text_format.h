@@ -1,0 +1,36 @@
+// Small text helpers shared by the plain-text and HTML writers: printf into
+// a string, percentages, weeks and intervals, done-by dates, word wrapping.
+#ifndef PLANNER_REPORT_TEXT_FORMAT_H_
+#define PLANNER_REPORT_TEXT_FORMAT_H_
+
+#include <optional>
+#include <string>
+
+#include "planner/calendar.h"
+#include "planner/quantile.h"
+
+namespace planner {
+
+inline constexpr int kTextWidth = 100;  // terminal text is at most this wide
+
+std::string Printf(const char* format, ...) __attribute__((format(printf, 1, 2)));
+
+// Whole numbers without decimals, others with one.
+std::string Compact(double x);
+// "12.3 %".
+std::string Percent(double share);
+// DoneByDate (report_numbers.h) formatted, or "" when not reached.
+std::string DoneBy(const Date& start, const std::optional<double>& weeks);
+// Weeks right-aligned in `width`, or "not reached".
+std::string WeeksText(const std::optional<double>& weeks, int width);
+// "34.8 - 37.5", "up to 9.0", "from 3.1" or "not available".
+std::string CiRangeText(const QuantileEstimate& q);
+// Word-wraps text to kTextWidth; the first line starts with `first`, the
+// others with as many spaces. Ends with a newline.
+std::string Wrap(const std::string& first, const std::string& text);
+// Cuts a label to `width` characters with "..." when longer.
+std::string FitLabel(std::string label, size_t width);
+
+}  // namespace planner
+
+#endif  // PLANNER_REPORT_TEXT_FORMAT_H_
