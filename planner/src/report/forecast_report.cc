@@ -7,8 +7,8 @@
 #include <nlohmann/json.hpp>
 #include <sstream>
 
+#include "planner/decision.h"
 #include "report/cautions.h"
-
 #include "report/report_numbers.h"
 #include "report/text_format.h"
 
@@ -128,15 +128,43 @@ std::string TextThinCells(const Plan& plan, const ForecastSummary& s,
   return out;
 }
 
+std::string SavedText(const std::optional<double>& weeks) {
+  return weeks ? Printf("%.1f", *weeks) : std::string("-");
+}
+
+// The cells whose relaxation would save most at P80: what making each
+// optional, or lowering its minimum, buys (from the same runs).
+std::string TextSavings(const Plan& plan, const ForecastSummary& s) {
+  std::vector<const CellForecast*> cells;
+  for (const CellForecast& c : s.cells) {
+    if (!c.cell.optional && c.saved_p80_if_optional && *c.saved_p80_if_optional > 0.0) {
+      cells.push_back(&c);
+    }
+  }
+  if (cells.empty()) return "";
+  std::stable_sort(cells.begin(), cells.end(), [](const CellForecast* a, const CellForecast* b) {
+    return *a->saved_p80_if_optional > *b->saved_p80_if_optional;
+  });
+  if (cells.size() > 5) cells.resize(5);
+  std::string out = Printf(
+      "\nWhat relaxing a cell would save (weeks, from the same runs)\n"
+      "  %-42s %17s %17s %17s\n",
+      "Cell", "optional: P50", "optional: P80",
+      Printf("min x %.0f %%: P80", 100.0 * s.relaxed_share).c_str());
+  for (const CellForecast* c : cells) {
+    out += Printf("  %-42s %17s %17s %17s\n",
+                  FitLabel(CellLabel(plan.matrix, c->cell), 42).c_str(),
+                  SavedText(c->saved_p50_if_optional).c_str(),
+                  SavedText(c->saved_p80_if_optional).c_str(),
+                  SavedText(c->saved_p80_if_relaxed).c_str());
+  }
+  return out;
+}
+
 std::string TextBottleneckAndDiagnostics(const Plan& plan, const ForecastSummary& s) {
   std::string out = "\n";
-  if (s.bottleneck_cell >= 0 && s.bottleneck_cell < static_cast<int>(s.cells.size())) {
-    const CellForecast& c = s.cells[static_cast<size_t>(s.bottleneck_cell)];
-    out += Wrap("", Printf("Most often last to fill: %s (in %.0f %% of runs)",
-                           CellLabel(plan.matrix, c.cell).c_str(), 100.0 * c.p_last_to_fill));
-  } else {
-    out += "Most often last to fill: none (no run completed within the horizon)\n";
-  }
+  out += Wrap("", BottleneckSentence(plan.matrix, s));
+  out += TextSavings(plan, s);
   out += "\nShares of the simulated time (diagnostics)\n";
   out += Printf("  Turbine available:            %8s\n",
                 Percent(s.turbine_availability).c_str());
@@ -180,6 +208,10 @@ Json CellJson(const CaptureMatrix& m, const CellForecast& c) {
   j["weeks_to_full"] = {{"p50", OptionalNumber(c.weeks_to_full_p50)},
                         {"p90", OptionalNumber(c.weeks_to_full_p90)}};
   j["p_last_to_fill"] = c.p_last_to_fill;
+  j["saved_weeks_if_optional"] = {{"p50", OptionalNumber(c.saved_p50_if_optional)},
+                                  {"p80", OptionalNumber(c.saved_p80_if_optional)}};
+  j["saved_weeks_if_relaxed"] = {{"p50", OptionalNumber(c.saved_p50_if_relaxed)},
+                                 {"p80", OptionalNumber(c.saved_p80_if_relaxed)}};
   return j;
 }
 
@@ -250,6 +282,12 @@ std::string FormatForecastJson(const Plan& plan, const ForecastSummary& s,
                        {"p_last_to_fill", c.p_last_to_fill}};
   } else {
     j["bottleneck"] = nullptr;
+  }
+  j["bottleneck_sentence"] = BottleneckSentence(plan.matrix, s);
+  j["relaxed_share"] = s.relaxed_share;
+  j["fill_curve"] = Json::array();
+  for (const FillPoint& p : s.fill_curve) {
+    j["fill_curve"].push_back({{"week", p.week}, {"p10", p.p10}, {"p50", p.p50}, {"p90", p.p90}});
   }
   j["cells"] = Json::array();
   for (const CellForecast& c : s.cells) j["cells"].push_back(CellJson(plan.matrix, c));
