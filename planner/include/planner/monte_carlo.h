@@ -17,6 +17,9 @@ struct MonteCarloOptions {
   uint64_t seed = 1;   // master seed
   int threads = 0;     // worker threads; 0 = all hardware threads
   int first_run = 0;   // index of the first run (to extend a set of runs)
+  // Continue a running campaign from this state (progress); null = from the
+  // plan's start. Not owned; must outlive the call.
+  const CampaignState* state = nullptr;
 };
 
 // Runs options.runs campaigns; result[i] is run first_run + i.

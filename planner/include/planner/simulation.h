@@ -54,6 +54,20 @@ struct RunResult {
 
 struct CompiledModel;  // lookup tables built once per plan (sim/compiled_model.h)
 
+// Where a forecast starts when the campaign is under way: the records and
+// events counted so far and the latest measured conditions. The simulation
+// then starts at 00:00 of the as-of day (elapsed_days after the plan's start),
+// with the calendar where it is, the counts as given, and the weather started
+// from the latest logged wind speed and direction (its latent normal is the
+// normal score of that speed under the sector's Weibull).
+struct CampaignState {
+  int64_t elapsed_days = 0;         // >= 0; below the horizon
+  std::vector<uint32_t> counts;     // per cell, so far (empty = all zero)
+  bool has_last_wind = false;
+  double last_speed_ms = 0;         // latest logged 10-minute mean speed
+  double last_direction_deg = 0;    // and its direction
+};
+
 struct SimulationOptions {
   // Share of each cell's minimum whose reaching time is also recorded, for
   // "what if this minimum were lowered" (0 < share <= 1). Default 0.8.
@@ -71,6 +85,11 @@ class Simulator {
   // Simulates run `run_index` of master seed `seed` into *out (reusing its
   // buffers). Thread-safe: may be called concurrently.
   void Run(uint64_t seed, uint64_t run_index, RunResult* out) const;
+  // The same, continuing a campaign from `state` (see CampaignState). Steps
+  // and weeks still count from the plan's start; a cell already full in
+  // `state` has full_step = the as-of step.
+  void Run(uint64_t seed, uint64_t run_index, const CampaignState& state,
+           RunResult* out) const;
 
   int cell_count() const;
   int64_t deadline_steps() const;

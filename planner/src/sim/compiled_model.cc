@@ -74,6 +74,7 @@ void CompileWeather(const SiteModel& site, const std::vector<AngleRange>& valid,
     const Sector& s = site.sectors[i];
     freq.push_back(s.frequency);
     m->sector_scale_ms.push_back(s.weibull.scale_ms);
+    m->sector_shape.push_back(s.weibull.shape);
     m->speed_transform.emplace_back(s.weibull.shape);
     const double start = static_cast<double>(i) * width - 0.5 * width;
     m->sector_valid_spans.push_back(ValidSpans(valid, start, width));

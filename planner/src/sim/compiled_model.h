@@ -103,6 +103,7 @@ struct CompiledModel {
   // Weather.
   SectorChain sector_chain;
   std::vector<double> sector_scale_ms;        // Weibull A per sector
+  std::vector<double> sector_shape;           // Weibull k per sector
   std::vector<SpeedTransform> speed_transform;  // per sector (its k)
   std::array<double, 12> monthly_factors{};
   std::array<double, 24> hourly_factors{};

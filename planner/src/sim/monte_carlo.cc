@@ -26,7 +26,12 @@ std::vector<RunResult> RunMonteCarlo(const Simulator& sim, const MonteCarloOptio
   const long total = options.runs;
   auto worker = [&]() {
     for (long i = next++; i < total; i = next++) {
-      sim.Run(options.seed, static_cast<uint64_t>(options.first_run + i), &results[i]);
+      const uint64_t run = static_cast<uint64_t>(options.first_run + i);
+      if (options.state != nullptr) {
+        sim.Run(options.seed, run, *options.state, &results[i]);
+      } else {
+        sim.Run(options.seed, run, &results[i]);
+      }
       if (progress != nullptr) {
         std::lock_guard<std::mutex> lock(progress_mutex);
         progress->Update(++done, total);

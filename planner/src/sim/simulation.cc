@@ -3,6 +3,8 @@
 #include <algorithm>
 #include <cmath>
 
+#include <boost/math/distributions/normal.hpp>
+
 #include "planner/random_stream.h"
 #include "sim/compiled_model.h"
 #include "sim/outage_windows.h"
@@ -17,6 +19,14 @@ constexpr uint64_t kTurbineSalt = 0x74757262696E6531ULL;
 constexpr uint64_t kDaqSalt = 0x6461712D6F757421ULL;
 constexpr uint64_t kYearSalt = 0x796561722D666163ULL;
 constexpr uint64_t kTiSalt = 0x74692D6C6174656EULL;
+
+// Normal score z with Phi(z) = F(x) for a unit-scale Weibull of shape k:
+// the inverse of SpeedTransform (Boost.Math's normal quantile).
+double NormalScoreOfSpeed(double unit_speed, double shape) {
+  const double upper = std::exp(-std::pow(std::max(unit_speed, 0.0), shape));  // 1 - F
+  const double p = std::clamp(upper, 1e-15, 1.0 - 1e-15);
+  return -boost::math::quantile(boost::math::normal_distribution<double>(), p);
+}
 
 inline double HighUniform(uint64_t r) { return static_cast<double>(r >> 32) * 0x1.0p-32; }
 inline double LowUniform(uint64_t r) {
@@ -83,9 +93,12 @@ class RunLoop {
         last_test_(m.manual_tests.size(), INT64_MIN / 2),
         out_(out) {}
 
-  void Run();
+  // state: continue a running campaign (null = from the plan's start).
+  void Run(const CampaignState* state);
 
  private:
+  void ApplyState(const CampaignState& state, int64_t start_step, RunState& s);
+  void SetDirection(int sector, double direction_u, RunState& s) const;
   RunState Start(uint64_t direction_bits, double z0);
   void DrawYearFactors();
   void Step(int64_t step, double scale, RunState& s, Engine& weather);
@@ -179,8 +192,12 @@ uint32_t RunLoop::DirectionRules(int sector, double direction_u) const {
 // A new draw of the sector (even of the same one) is a new direction in it.
 // Both uniforms come from one 64-bit word.
 inline void RunLoop::NewDirection(uint64_t bits, RunState& s) const {
-  s.sector = m_.sector_chain.frequencies.Draw(HighUniform(bits));
-  s.direction_u = LowUniform(bits);
+  SetDirection(m_.sector_chain.frequencies.Draw(HighUniform(bits)), LowUniform(bits), s);
+}
+
+inline void RunLoop::SetDirection(int sector, double direction_u, RunState& s) const {
+  s.sector = sector;
+  s.direction_u = direction_u;
   s.sector_scale_ms = m_.sector_scale_ms[s.sector];
   s.transform = &m_.speed_transform[s.sector];
   s.sector_ok = InSpans(m_.sector_valid_spans[s.sector], s.direction_u);
@@ -300,14 +317,48 @@ void RunLoop::DrawYearFactors() {
   for (double& f : year_factor_) f = std::exp(-0.5 * s * s + s * normal_(e));
 }
 
-void RunLoop::Run() {
+// Counts so far, cells already full, and the weather started from the latest
+// logged wind: its sector and position in it, and the normal score of its
+// speed under that sector's Weibull scaled as on the evening before.
+void RunLoop::ApplyState(const CampaignState& state, int64_t start_step, RunState& s) {
+  s.ti_step = start_step;
+  for (size_t c = 0; c < state.counts.size() && c < m_.required.size(); ++c) {
+    const uint32_t n = state.counts[c];
+    out_->count_at_end[c] = n;
+    if (n >= m_.relaxed_required[c]) out_->relaxed_full_step[c] = start_step;
+    if (n < m_.required[c]) continue;
+    out_->full_step[c] = start_step;
+    s.tests_open -= m_.manual_test_cell[c];
+    if (!m_.optional[c]) --s.remaining;
+  }
+  if (s.remaining == 0) out_->completion_step = start_step;
+  if (start_step > m_.deadline_steps) {
+    out_->count_at_deadline = out_->count_at_end;  // the deadline has passed
+    deadline_passed_ = true;
+  }
+  if (!state.has_last_wind) return;
+  const int sectors = static_cast<int>(m_.sector_scale_ms.size());
+  const double shifted = std::fmod(state.last_direction_deg / m_.sector_width_deg + 0.5 +
+                                       10.0 * sectors, static_cast<double>(sectors));
+  const int sector = std::min(sectors - 1, static_cast<int>(shifted));
+  SetDirection(sector, shifted - sector, s);
+  const int64_t day = std::max<int64_t>(0, start_step / kStepsPerDay - 1);
+  const double scale = m_.sector_scale_ms[sector] * m_.monthly_factors[m_.day_month[day]] *
+                       year_factor_[m_.day_year[day]] * m_.hourly_factors[23];
+  s.z = NormalScoreOfSpeed(state.last_speed_ms / scale, m_.sector_shape[sector]);
+}
+
+void RunLoop::Run(const CampaignState* state) {
   Engine weather = MakeRunEngine(seed_, run_);
   const uint64_t direction_bits = weather();
   const double z0 = normal_(weather);
   RunState s = Start(direction_bits, z0);
-  int64_t step = 0;
+  const int64_t first_day = state != nullptr ? state->elapsed_days : 0;
+  int64_t step = first_day * kStepsPerDay;
+  if (state != nullptr) ApplyState(*state, step, s);
+  s.checkpoint = step;
   const int64_t days = static_cast<int64_t>(m_.day_month.size());
-  for (int64_t day = 0; day < days; ++day) {
+  for (int64_t day = first_day; day < days; ++day) {
     const int month = m_.day_month[day];
     const double day_scale = m_.monthly_factors[month] * year_factor_[m_.day_year[day]];
     for (int hour = 0; hour < 24; ++hour) {
@@ -356,7 +407,13 @@ Simulator::~Simulator() = default;
 
 void Simulator::Run(uint64_t seed, uint64_t run_index, RunResult* out) const {
   RunLoop loop(*model_, seed, run_index, out);
-  loop.Run();
+  loop.Run(nullptr);
+}
+
+void Simulator::Run(uint64_t seed, uint64_t run_index, const CampaignState& state,
+                    RunResult* out) const {
+  RunLoop loop(*model_, seed, run_index, out);
+  loop.Run(&state);
 }
 
 int Simulator::cell_count() const { return static_cast<int>(model_->required.size()); }

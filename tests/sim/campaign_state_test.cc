@@ -1,0 +1,68 @@
+// Continuing a running campaign: counts carried over, the calendar where it
+// is, the weather started from the latest logged wind.
+#include <gtest/gtest.h>
+
+#include "planner/monte_carlo.h"
+#include "planner/simulation.h"
+#include "sim/test_plans.h"
+
+namespace planner {
+namespace {
+
+std::vector<RunResult> Continue(const Plan& plan, const CampaignState& state, int runs) {
+  const Simulator sim(plan);
+  MonteCarloOptions mc;
+  mc.runs = runs;
+  mc.seed = 17;
+  mc.state = &state;
+  return RunMonteCarlo(sim, mc, nullptr);
+}
+
+TEST(CampaignStateTest, FullMatrixForecastsZeroRemainingWeeks) {
+  const Plan plan = testing_plans::SingleCellPlan(8.0, 2.0, 10.0, 12.0, 50, 30, 10);
+  CampaignState state;
+  state.elapsed_days = 12;
+  state.counts = {50};
+  for (const RunResult& r : Continue(plan, state, 5)) {
+    EXPECT_EQ(r.completion_step, 12 * kStepsPerDay);  // complete at the as-of date
+    EXPECT_EQ(r.full_step[0], 12 * kStepsPerDay);
+    EXPECT_GE(r.count_at_end[0], 50u);  // records go on accumulating to the deadline
+  }
+}
+
+// Counts carry over: needing one more record, the run completes at the first
+// record in the bin after the as-of date, never before it.
+TEST(CampaignStateTest, CountsSoFarCarryOver) {
+  const Plan plan = testing_plans::SingleCellPlan(8.0, 2.0, 2.0, 30.0, 500, 30, 10);
+  CampaignState state;
+  state.elapsed_days = 5;
+  state.counts = {499};
+  for (const RunResult& r : Continue(plan, state, 20)) {
+    EXPECT_GT(r.completion_step, 5 * kStepsPerDay);
+    EXPECT_LT(r.completion_step, 5 * kStepsPerDay + 10);  // P(2 <= V < 30) ~ 0.94
+    EXPECT_GE(r.count_at_deadline[0], 500u);
+  }
+}
+
+// With a very persistent wind (tau = 2000 h), the first day after the as-of
+// date keeps the last logged speed: its mean lies close to 20 m/s although the
+// climate's mean is 7 m/s. (phi^144 = 0.988: the latent score barely moves.)
+TEST(CampaignStateTest, WeatherStartsFromTheLastLoggedWind) {
+  Plan plan = testing_plans::SingleCellPlan(7.9, 2.0, 2.0, 30.0, 1, 30, 10);
+  plan.site.wind_persistence_h = 2000;
+  CampaignState state;
+  state.elapsed_days = 29;  // the deadline is one day later
+  state.counts = {1};       // complete: the run goes on to the deadline only
+  state.has_last_wind = true;
+  state.last_speed_ms = 20.0;
+  state.last_direction_deg = 200.0;
+  for (const RunResult& r : Continue(plan, state, 10)) {
+    ASSERT_EQ(r.simulated_steps, 30 * kStepsPerDay);
+    const double first_day_mean = r.speed_sum_ms / kStepsPerDay;
+    EXPECT_GT(first_day_mean, 17.0);
+    EXPECT_LT(first_day_mean, 23.0);
+  }
+}
+
+}  // namespace
+}  // namespace planner
