@@ -66,3 +66,34 @@ TEST(CampaignStateTest, WeatherStartsFromTheLastLoggedWind) {
 
 }  // namespace
 }  // namespace planner
+
+namespace planner {
+namespace {
+
+// A traced run is the same run, and its records, counted per cell, give the
+// run's counts exactly.
+TEST(CampaignStateTest, TraceReproducesTheRunsCounts) {
+  Plan plan = testing_plans::SingleCellPlan(8.0, 2.0, 6.0, 9.0, 400, 20, 4);
+  plan.site.wind_persistence_h = 12;
+  plan.turbine_outages = testing_plans::Outages(100, 10);
+  plan.quality_reject_fraction = 0.1;
+  const Simulator sim(plan);
+  RunResult plain, traced;
+  std::vector<TracedRecord> records;
+  sim.Run(3, 1, &plain);
+  sim.Trace(3, 1, &traced, &records);
+  EXPECT_EQ(plain.completion_step, traced.completion_step);
+  EXPECT_EQ(plain.count_at_end, traced.count_at_end);
+  ASSERT_EQ(static_cast<int64_t>(records.size()), traced.simulated_steps);
+  uint32_t counted = 0;
+  for (const TracedRecord& r : records) {
+    const bool in_cell = r.valid && r.turbine_up && r.state == OperatingState::kProduction &&
+                         r.speed_ms >= 6.0 && r.speed_ms < 9.0;
+    EXPECT_EQ(in_cell, r.cell == 0) << "step " << r.step;
+    counted += r.cell == 0;
+  }
+  EXPECT_EQ(counted, traced.count_at_end[0]);
+}
+
+}  // namespace
+}  // namespace planner

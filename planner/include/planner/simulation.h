@@ -52,6 +52,21 @@ struct RunResult {
   double speed_sum_ms = 0;      // sum of the simulated mean wind speeds
 };
 
+// One simulated 10-minute record, for tests that rebuild a campaign log from
+// a simulated campaign (Simulator::Trace). Not used by forecasts.
+struct TracedRecord {
+  int64_t step = 0;           // 0-based record index from the plan's start
+  double speed_ms = 0;        // mean wind speed
+  double direction_deg = 0;   // wind direction
+  double ti = 0;              // TI (fraction) where the simulation drew it, else NaN
+  OperatingState state = OperatingState::kParked;
+  bool turbine_up = true, daq_up = true, sector_ok = true;
+  bool quality_ok = true;     // passed the data-quality check
+  bool valid = true;          // acquisition up, valid sector, quality passed
+  bool manual_test = false;   // a manual test was done in this record
+  int cell = -1;              // record cell it counted for, -1 if none
+};
+
 struct CompiledModel;  // lookup tables built once per plan (sim/compiled_model.h)
 
 // Where a forecast starts when the campaign is under way: the records and
@@ -85,6 +100,10 @@ class Simulator {
   // Simulates run `run_index` of master seed `seed` into *out (reusing its
   // buffers). Thread-safe: may be called concurrently.
   void Run(uint64_t seed, uint64_t run_index, RunResult* out) const;
+  // The same as Run, also returning every simulated record (tests only: a
+  // per-step history, so short horizons only). Results equal Run's.
+  void Trace(uint64_t seed, uint64_t run_index, RunResult* out,
+             std::vector<TracedRecord>* records) const;
   // The same, continuing a campaign from `state` (see CampaignState). Steps
   // and weeks still count from the plan's start; a cell already full in
   // `state` has full_step = the as-of step.

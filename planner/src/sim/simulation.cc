@@ -98,6 +98,15 @@ class RunLoop {
 
  private:
   void ApplyState(const CampaignState& state, int64_t start_step, RunState& s);
+  void Trace(int64_t step, double speed_ms, int state, bool quality_ok, bool manual_test,
+             int cell, const RunState& s);
+
+ public:
+  std::vector<TracedRecord>* trace_ = nullptr;  // tests only: every record
+
+ private:
+  double traced_ti_ = 0;
+  int64_t traced_ti_step_ = -1;
   void SetDirection(int sector, double direction_u, RunState& s) const;
   RunState Start(uint64_t direction_bits, double z0);
   void DrawYearFactors();
@@ -173,7 +182,9 @@ inline int RunLoop::CellOf(int state, double speed_ms, int64_t step, RunState& s
   if (ti_bins == 0) return g.cell_index[w];
   s.x_ti = m_.ti_ar1.Advance(s.x_ti, step - s.ti_step, normal_(ti_engine_));
   s.ti_step = step;
-  const int t = g.TiBin(m_.ti_law.LogSample(speed_ms, s.x_ti));
+  const double log_ti = m_.ti_law.LogSample(speed_ms, s.x_ti);
+  if (trace_ != nullptr) traced_ti_ = std::exp(log_ti), traced_ti_step_ = step;
+  const int t = g.TiBin(log_ti);
   return t < 0 ? -1 : g.cell_index[w * ti_bins + t];
 }
 
@@ -291,18 +302,41 @@ inline void RunLoop::Step(int64_t step, double scale, RunState& s, Engine& weath
 
   const bool producing = s.turbine_up && !s.high_wind_stop && speed >= m_.cut_in_ms &&
                          curtail != kStop;
-  const bool valid =
-      s.daq_up && s.sector_ok && (r1 & 0xFFFFFFFFULL) >= m_.reject_threshold;
+  const bool quality_ok = (r1 & 0xFFFFFFFFULL) >= m_.reject_threshold;
+  const bool valid = s.daq_up && s.sector_ok && quality_ok;
   if (producing != (s.prev_producing == 1)) OnTransition(producing, speed, valid, step, s);
+  const int state = producing ? (curtail == kReduce ? 2 : 0) : 1;
   if (s.tests_open > 0 && s.crew_here && producing && curtail == kNotCurtailed &&
       s.daq_up && s.sector_ok && TryManualTest(speed, valid, step, s)) {
-    return;  // a test record is a transient, not a production record
+    // A test record is a transient, not a production record.
+    if (trace_ != nullptr) Trace(step, speed, state, quality_ok, true, -1, s);
+    return;
   }
-  if (!valid) return;
-  if (!producing && !s.turbine_up && !m_.parked_counts_during_outage) return;
-  const int state = producing ? (curtail == kReduce ? 2 : 0) : 1;
-  const int cell = CellOf(state, speed, step, s);
-  if (cell >= 0) Count(cell, step, s);
+  int cell = -1;
+  if (valid && (producing || s.turbine_up || m_.parked_counts_during_outage)) {
+    cell = CellOf(state, speed, step, s);
+    if (cell >= 0) Count(cell, step, s);
+  }
+  if (trace_ != nullptr) Trace(step, speed, state, quality_ok, false, cell, s);
+}
+
+void RunLoop::Trace(int64_t step, double speed_ms, int state, bool quality_ok,
+                    bool manual_test, int cell, const RunState& s) {
+  TracedRecord t;
+  t.step = step;
+  t.speed_ms = speed_ms;
+  t.direction_deg = std::fmod((s.sector - 0.5 + s.direction_u) * m_.sector_width_deg + 360.0,
+                              360.0);
+  t.ti = s.ti_step == step && traced_ti_step_ == step ? traced_ti_ : NAN;
+  t.state = static_cast<OperatingState>(state);
+  t.turbine_up = s.turbine_up;
+  t.daq_up = s.daq_up;
+  t.sector_ok = s.sector_ok;
+  t.quality_ok = quality_ok;
+  t.valid = s.daq_up && s.sector_ok && quality_ok;
+  t.manual_test = manual_test;
+  t.cell = cell;
+  trace_->push_back(t);
 }
 
 // One lognormal factor with mean 1 and standard deviation interannual_std per
@@ -407,6 +441,14 @@ Simulator::~Simulator() = default;
 
 void Simulator::Run(uint64_t seed, uint64_t run_index, RunResult* out) const {
   RunLoop loop(*model_, seed, run_index, out);
+  loop.Run(nullptr);
+}
+
+void Simulator::Trace(uint64_t seed, uint64_t run_index, RunResult* out,
+                      std::vector<TracedRecord>* records) const {
+  RunLoop loop(*model_, seed, run_index, out);
+  records->clear();
+  loop.trace_ = records;
   loop.Run(nullptr);
 }
 
