@@ -42,7 +42,8 @@ std::string MatrixError(const std::string& text) {
 }
 
 // Each grid position points at a cell with the grid's state and bins, or at
-// nothing (-1), and every cell is pointed at exactly once.
+// nothing (-1); every record cell is pointed at exactly once, and the event
+// cells (not in any grid) come after all record cells.
 void ExpectConsistentGrids(const CaptureMatrix& m) {
   std::vector<int> references(m.cells.size(), 0);
   for (const StateGrid& g : m.grids) {
@@ -65,7 +66,14 @@ void ExpectConsistentGrids(const CaptureMatrix& m) {
       }
     }
   }
-  for (int r : references) EXPECT_EQ(r, 1);
+  bool events_started = false;
+  for (std::size_t i = 0; i < m.cells.size(); ++i) {
+    const bool is_event = m.cells[i].event >= 0;
+    events_started = events_started || is_event;
+    EXPECT_EQ(is_event, events_started) << "record cell after an event cell: " << i;
+    EXPECT_EQ(references[i], is_event ? 0 : 1) << i;
+    if (is_event) EXPECT_LT(m.cells[i].event, static_cast<int>(m.event_types.size()));
+  }
 }
 
 TEST(CaptureMatrixReaderTest, CellsAreWindMajorThenTi) {
@@ -201,12 +209,11 @@ std::string WithOverride(const std::string& entry) {
 std::vector<BadMatrix> BadMatrices() {
   return {
       {"no state", kBase.substr(0, kBase.find("capture_matrix")) + "capture_matrix: {}\n",
-       "plan.yaml:5:17: capture_matrix: has no operating state; give production, parked "
-       "or "
-       "both"},
+       "plan.yaml:5:17: capture_matrix: has no cells; give production, parked, reduced "
+       "or events"},
       {"unknown state", Replace(kBase, "production:", "idle:"),
        "plan.yaml:6:3: capture_matrix.idle: unknown field; valid fields: production, "
-       "parked"},
+       "parked, reduced, events"},
       {"missing wind bins", Replace(kBase, "    wind_bins_ms: [4, 5, 6, 7]\n", ""),
        "plan.yaml:7:5: " + kWind + ": required field is missing"},
       {"width does not divide", WithWind("{from: 4, to: 8, width: 3}"),

@@ -116,8 +116,8 @@ struct BadPlan {
 };
 
 const std::string kPlanFields =
-    "valid fields: name, site_model, campaign, turbine, valid_sectors_deg, outages, "
-    "quality_reject_fraction, capture_matrix";
+    "valid fields: name, site_model, campaign, turbine, valid_sectors_deg, layout, "
+    "outages, curtailment, manual_tests, quality_reject_fraction, capture_matrix";
 const std::string kTurbineFields =
     "valid fields: name, rated_power_kw, rotor_diameter_m, hub_height_m, cut_in_ms, "
     "rated_ms, cut_out_ms, restart_ms";
@@ -330,6 +330,16 @@ TEST(PlanReaderTest, ShippedDemoPlanLoads) {
   int required = 0;
   for (const Cell& c : plan.matrix.cells) required += c.optional ? 0 : 1;
   EXPECT_GT(required, 0);
+  // The realism features are used (issue 3): a layout that narrows the valid
+  // sector, outage laws, a planned outage, curtailment, manual tests, events.
+  EXPECT_FALSE(plan.layout.neighbours.empty());
+  EXPECT_LT(AngleOverlapDeg(plan.valid_sectors, 0, 360), 360.0);
+  EXPECT_GT(AngleOverlapDeg(plan.valid_sectors, 0, 360), 90.0);
+  EXPECT_NE(plan.turbine_outages.up_law.kind, DurationLaw::Kind::kExponential);
+  EXPECT_FALSE(plan.planned_outages.empty());
+  EXPECT_FALSE(plan.curtailment.empty());
+  EXPECT_FALSE(plan.manual_tests.empty());
+  EXPECT_FALSE(plan.matrix.event_types.empty());
 }
 
 }  // namespace

@@ -6,11 +6,14 @@
 #include <string>
 #include <vector>
 
+#include "io/event_cell_reader.h"
+
 namespace planner {
 namespace io {
 namespace {
 
-const std::vector<std::string> kMatrixFields = {"production", "parked"};
+const std::vector<std::string> kMatrixFields = {"production", "parked", "reduced",
+                                                "events"};
 const std::vector<std::string> kStateFields = {"wind_bins_ms", "ti_bins_pct",
                                                "min_records", "overrides"};
 const std::vector<std::string> kRangeFields = {"from", "to", "width"};
@@ -193,8 +196,8 @@ void ApplyOverride(const Field& f, const StateGrid& grid, GridTargets* targets) 
   }
 }
 
-// Production records exist only for cut_in <= V < cut_out, so a production
-// cell wholly outside that range could never fill.
+// Production records (normal or reduced) exist only for cut_in <= V < cut_out,
+// so a production or reduced cell wholly outside that range could never fill.
 void CheckProductionRange(const Field& wind_field, const StateGrid& grid,
                           const GridTargets& targets, const TurbineSpec& turbine) {
   for (std::size_t w = 0; w < grid.wind_bins_ms.size(); ++w) {
@@ -253,7 +256,7 @@ void ReadState(const Field& f, OperatingState state, const TurbineSpec& turbine,
   if (const auto overrides = m.Find("overrides")) {
     for (const Field& item : AsList(*overrides)) ApplyOverride(item, grid, &targets);
   }
-  if (state == OperatingState::kProduction) {
+  if (state != OperatingState::kParked) {
     CheckProductionRange(wind_field, grid, targets, turbine);
   }
   AppendCells(std::move(grid), targets, matrix);
@@ -261,17 +264,34 @@ void ReadState(const Field& f, OperatingState state, const TurbineSpec& turbine,
 
 }  // namespace
 
-CaptureMatrix ReadCaptureMatrix(const Field& f, const TurbineSpec& turbine) {
-  const FieldMap m(f, kMatrixFields);
-  if (!m.Has("production") && !m.Has("parked")) {
-    Fail(f, "has no operating state; give production, parked or both");
+// Reduced-mode records exist only while a curtailment rule with action
+// reduce holds.
+void CheckReduceRule(const Field& f, const Plan& plan) {
+  for (const CurtailmentRule& rule : plan.curtailment) {
+    if (rule.action == CurtailmentRule::Action::kReduce) return;
   }
+  Fail(f,
+       "no curtailment rule has action: reduce, so no record is ever in reduced mode "
+       "and these cells could never fill; add such a rule or remove reduced");
+}
+
+CaptureMatrix ReadCaptureMatrix(const Field& f, const Plan& plan) {
+  const FieldMap m(f, kMatrixFields);
+  if (!m.Has("production") && !m.Has("parked") && !m.Has("reduced") && !m.Has("events")) {
+    Fail(f, "has no cells; give production, parked, reduced or events");
+  }
+  const TurbineSpec& turbine = plan.turbine;
   CaptureMatrix matrix;
   if (const auto p = m.Find("production")) {
     ReadState(*p, OperatingState::kProduction, turbine, &matrix);
   }
   if (const auto p = m.Find("parked"))
     ReadState(*p, OperatingState::kParked, turbine, &matrix);
+  if (const auto p = m.Find("reduced")) {
+    CheckReduceRule(*p, plan);
+    ReadState(*p, OperatingState::kReduced, turbine, &matrix);
+  }
+  if (const auto e = m.Find("events")) ReadEventCells(*e, plan, &matrix);
   const bool any_required = std::any_of(matrix.cells.begin(), matrix.cells.end(),
                                         [](const Cell& c) { return !c.optional; });
   if (!any_required) {

@@ -1,5 +1,7 @@
 // Reading campaign plans (docs/plan.md). Site models: site_model_reader.cc;
-// the capture matrix: capture_matrix_reader.cc.
+// the sections with their own readers: outage_reader.cc, curtailment_reader.cc,
+// manual_test_reader.cc, layout_reader.cc, capture_matrix_reader.cc (with
+// event_cell_reader.cc).
 #include "planner/plan_reader.h"
 
 #include <cmath>
@@ -10,6 +12,11 @@
 #include <vector>
 
 #include "io/capture_matrix_reader.h"
+#include "io/curtailment_reader.h"
+#include "io/layout_reader.h"
+#include "io/manual_test_reader.h"
+#include "io/outage_reader.h"
+#include "io/plan_fields.h"
 #include "io/yaml_fields.h"
 
 namespace planner {
@@ -26,16 +33,16 @@ const std::vector<std::string> kPlanFields = {"name",
                                               "campaign",
                                               "turbine",
                                               "valid_sectors_deg",
+                                              "layout",
                                               "outages",
+                                              "curtailment",
+                                              "manual_tests",
                                               "quality_reject_fraction",
                                               "capture_matrix"};
 const std::vector<std::string> kCampaignFields = {"start", "deadline", "horizon_weeks"};
 const std::vector<std::string> kTurbineFields = {
     "name",      "rated_power_kw", "rotor_diameter_m", "hub_height_m",
     "cut_in_ms", "rated_ms",       "cut_out_ms",       "restart_ms"};
-const std::vector<std::string> kOutagesFields = {"turbine", "data_acquisition",
-                                                 "parked_counts_during_outage"};
-const std::vector<std::string> kOutageModelFields = {"mtbf_h", "mttr_h"};
 
 // Twenty years: longer horizons are typing mistakes, and cost run time.
 constexpr int kMaxHorizonWeeks = 1040;
@@ -113,54 +120,6 @@ TurbineSpec ReadTurbine(const Field& f) {
   return t;
 }
 
-AngleRange ReadAngleRange(const Field& f) {
-  const auto [from, to] = io::AsPair(f, "[from, to]");
-  AngleRange range;
-  range.from_deg = io::AsNumber(from, Interval("[)", 0, 360, "degrees"));
-  range.to_deg = io::AsNumber(to, Interval("[]", 0, 360, "degrees"));
-  if (range.from_deg == range.to_deg) {
-    io::Fail(f, io::PairText(f) +
-                    " is an empty sector; a sector runs clockwise from the "
-                    "first angle to the second (write [0, 360] for the full "
-                    "circle)");
-  }
-  return range;
-}
-
-std::vector<AngleRange> ReadValidSectors(const Field& f) {
-  const std::vector<Field> items = io::AsList(f);
-  if (items.empty()) {
-    io::Fail(f,
-             "is empty; give at least one [from, to] sector, or leave the field out "
-             "for the full circle");
-  }
-  std::vector<AngleRange> sectors;
-  for (const Field& item : items) sectors.push_back(ReadAngleRange(item));
-  return sectors;
-}
-
-OutageModel ReadOutageModel(const Field& f) {
-  const FieldMap m(f, kOutageModelFields);
-  OutageModel model;
-  model.mtbf_h = io::ReadNumber(m, "mtbf_h", Interval("[]", 0, 1e6, "h"));
-  const Field mttr = m.Get("mttr_h");
-  model.mttr_h = io::AsNumber(mttr, Interval("[]", 0, 1e5, "h"));
-  if (model.mtbf_h > 0.0 && model.mttr_h == 0.0) {
-    io::Fail(mttr, io::Text(mttr) +
-                       " must be above 0 when mtbf_h is above 0 (a repair "
-                       "takes time); set mtbf_h to 0 for no outages");
-  }
-  return model;
-}
-
-void ReadOutages(const Field& f, Plan* plan) {
-  const FieldMap m(f, kOutagesFields);
-  if (const auto t = m.Find("turbine")) plan->turbine_outages = ReadOutageModel(*t);
-  if (const auto d = m.Find("data_acquisition")) plan->daq_outages = ReadOutageModel(*d);
-  plan->parked_counts_during_outage =
-      io::ReadBool(m, "parked_counts_during_outage", false);
-}
-
 // The site model path is relative to the plan's folder.
 void ReadSite(const Field& f, const std::string& base_dir, Plan* plan) {
   const std::string given = io::AsText(f);
@@ -187,13 +146,19 @@ Plan ParsePlan(const std::string& yaml_text, const std::string& file_name,
   plan.source_file = file_name;
   ReadCampaign(m.Get("campaign"), &plan);
   plan.turbine = ReadTurbine(m.Get("turbine"));
-  if (const auto f = m.Find("valid_sectors_deg")) {
-    plan.valid_sectors = ReadValidSectors(*f);
+  const std::optional<Field> sectors = m.Find("valid_sectors_deg");
+  if (sectors) {
+    plan.valid_sectors =
+        io::ReadAngleRanges(*sectors, "leave the field out for the full circle");
   }
-  if (const auto f = m.Find("outages")) ReadOutages(*f, &plan);
+  if (const auto f = m.Find("layout")) io::ReadLayout(*f, sectors.has_value(), &plan);
+  if (const auto f = m.Find("outages")) io::ReadOutages(*f, &plan);
+  if (const auto f = m.Find("curtailment")) plan.curtailment = io::ReadCurtailment(*f);
+  if (const auto f = m.Find("manual_tests")) io::ReadManualTests(*f, &plan);
   plan.quality_reject_fraction =
       io::ReadNumber(m, "quality_reject_fraction", Interval("[)", 0, 1), 0.0);
-  plan.matrix = io::ReadCaptureMatrix(m.Get("capture_matrix"), plan.turbine);
+  // After curtailment and manual tests, which the matrix refers to.
+  plan.matrix = io::ReadCaptureMatrix(m.Get("capture_matrix"), plan);
   // Last, so that the plan's own mistakes are reported before the site's.
   ReadSite(m.Get("site_model"), base_dir, &plan);
   return plan;

@@ -327,6 +327,16 @@ std::string PairText(const Field& f) {
   return "[" + out + "]";
 }
 
+std::string PeekText(const Field& f, const std::string& key) {
+  if (!f.node.IsMap()) return "";
+  for (auto it = f.node.begin(); it != f.node.end(); ++it) {
+    if (it->first.IsScalar() && it->first.Scalar() == key && it->second.IsScalar()) {
+      return it->second.Scalar();
+    }
+  }
+  return "";
+}
+
 double ReadNumber(const FieldMap& m, const std::string& key, const Limits& limits) {
   return AsNumber(m.Get(key), limits);
 }

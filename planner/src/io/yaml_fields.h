@@ -108,6 +108,11 @@ std::pair<Field, Field> AsPair(const Field& f, const std::string& shape = "[lo, 
 // "[a, b]" as the user wrote it.
 std::string PairText(const Field& f);
 
+// The text of `key` in mapping f if f is a mapping holding that key with a
+// scalar value, else "". For mappings whose valid keys depend on one of them
+// (a "law" or "model"), before the keys are checked.
+std::string PeekText(const Field& f, const std::string& key);
+
 // Required (Get) and optional (with fallback) fields of a mapping.
 double ReadNumber(const FieldMap& m, const std::string& key, const Limits& limits);
 double ReadNumber(const FieldMap& m, const std::string& key, const Limits& limits,

@@ -67,10 +67,9 @@ std::vector<Interval> Subtract(const std::vector<Interval>& a,
     }
     if (piece.second - piece.first > kMinPieceDeg) out.push_back(piece);
   }
-  out.erase(std::remove_if(out.begin(), out.end(),
-                           [](const Interval& p) {
-                             return p.second - p.first <= kMinPieceDeg;
-                           }),
+  out.erase(std::remove_if(
+                out.begin(), out.end(),
+                [](const Interval& p) { return p.second - p.first <= kMinPieceDeg; }),
             out.end());
   return out;
 }
@@ -82,8 +81,8 @@ std::vector<AngleRange> ToRanges(const std::vector<Interval>& pieces) {
   if (pieces.size() == 1 && pieces[0].first <= 0.0 && pieces[0].second >= 360.0) {
     return {AngleRange{0.0, 360.0}};
   }
-  const bool wraps = pieces.size() >= 2 && pieces.front().first <= 0.0 &&
-                     pieces.back().second >= 360.0;
+  const bool wraps =
+      pieces.size() >= 2 && pieces.front().first <= 0.0 && pieces.back().second >= 360.0;
   const std::size_t first = wraps ? 1 : 0;
   const std::size_t last = wraps ? pieces.size() - 1 : pieces.size();
   for (std::size_t i = first; i < last; ++i) {
@@ -105,7 +104,8 @@ DisturbedSector SectorAround(const std::string& reason_prefix, const char* ratio
   const double bearing = Wrap360(bearing_deg);
   if (ratio > kMaxRatio) {
     s.range = AngleRange{bearing, bearing};
-    s.note = std::string(ratio_name) + " above 20, beyond the formula's range: not excluded";
+    s.note =
+        std::string(ratio_name) + " above 20, beyond the formula's range: not excluded";
     return s;
   }
   const double alpha = DisturbedSectorWidthDeg(ratio);

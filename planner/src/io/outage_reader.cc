@@ -1,0 +1,177 @@
+#include "io/outage_reader.h"
+
+#include <cmath>
+#include <optional>
+#include <string>
+#include <vector>
+
+#include "io/plan_fields.h"
+
+namespace planner {
+namespace io {
+namespace {
+
+const std::vector<std::string> kOutagesFields = {"turbine", "data_acquisition", "planned",
+                                                 "parked_counts_during_outage"};
+const std::vector<std::string> kOutageModelFields = {
+    "mtbf_h", "mttr_h", "up_times", "repair_times", "repair_month_factors"};
+const std::vector<std::string> kLawFields = {"law", "k", "scale_h", "sigma", "mu"};
+const std::vector<std::string> kExponentialFields = {"law"};
+const std::vector<std::string> kWeibullFields = {"law", "k", "scale_h"};
+const std::vector<std::string> kLognormalFields = {"law", "sigma", "mu"};
+const std::vector<std::string> kPlannedFields = {"name", "from", "to", "turbine",
+                                                 "data_acquisition"};
+
+const Limits kUpMeanLimits = Interval("[]", 0, 1e6, "h");
+const Limits kRepairMeanLimits = Interval("[]", 0, 1e5, "h");
+
+// A duration law as written, before its mean is known.
+struct LawInput {
+  DurationLaw law;
+  // The law's own scale (Weibull scale_h, lognormal mu), if given, and the
+  // mean it implies.
+  std::optional<Field> scale_field;
+  double mean_h = 0.0;
+};
+
+LawInput ReadLaw(const Field& f) {
+  const std::string peeked = PeekText(f, "law");
+  const bool known =
+      peeked == "exponential" || peeked == "weibull" || peeked == "lognormal";
+  const FieldMap m(f,
+                   peeked == "exponential" ? kExponentialFields
+                   : peeked == "weibull"   ? kWeibullFields
+                   : peeked == "lognormal" ? kLognormalFields
+                                           : kLawFields,
+                   known ? "for law '" + peeked + "'" : "");
+  const Field law_field = m.Get("law");
+  const std::string name = AsText(law_field);
+  LawInput in;
+  if (name == "exponential") {
+    in.law.kind = DurationLaw::Kind::kExponential;
+  } else if (name == "weibull") {
+    in.law.kind = DurationLaw::Kind::kWeibull;
+    in.law.shape = ReadNumber(m, "k", Interval("[]", 0.1, 10));
+    in.scale_field = m.Find("scale_h");
+    if (in.scale_field) {
+      const double scale = AsNumber(*in.scale_field, Interval("()", 0, kInfinity, "h"));
+      in.mean_h = scale * std::tgamma(1.0 + 1.0 / in.law.shape);
+    }
+  } else if (name == "lognormal") {
+    in.law.kind = DurationLaw::Kind::kLognormal;
+    in.law.shape = ReadNumber(m, "sigma", Interval("(]", 0, 4));
+    in.scale_field = m.Find("mu");
+    if (in.scale_field) {
+      const double mu = AsNumber(*in.scale_field, Interval("[]", -20, 20));
+      in.mean_h = std::exp(mu + in.law.shape * in.law.shape / 2.0);
+    }
+  } else {
+    Fail(law_field, Describe(law_field.node) +
+                        " is not a law; valid: exponential, weibull, lognormal");
+  }
+  return in;
+}
+
+// The mean duration: `mean_key` (mtbf_h / mttr_h) or the law's own scale.
+double ReadMean(const FieldMap& m, const std::string& mean_key,
+                const std::string& law_key, const LawInput& law, const Limits& limits,
+                const std::string& what) {
+  const std::optional<Field> mean = m.Find(mean_key);
+  if (law.scale_field) {
+    const std::string scale = law.scale_field->path.substr(m.self().path.size() + 1);
+    if (mean) {
+      Fail(*mean, "given together with " + scale + "; give either the mean (" + mean_key +
+                      ") or the law's own scale, not both");
+    }
+    if (!Within(limits, law.mean_h)) {
+      Fail(*law.scale_field, "gives a mean " + what + " of " + FormatNumber(law.mean_h) +
+                                 " h; must be " + DescribeLimits(limits));
+    }
+    return law.mean_h;
+  }
+  if (!mean) {
+    ThrowAt(m.self().where, m.PathOf(mean_key),
+            "required field is missing; give the mean " + what + ", or " + law_key +
+                " with the law's own scale (scale_h for weibull, mu for lognormal)");
+  }
+  return AsNumber(*mean, limits);
+}
+
+void ReadRepairMonthFactors(const Field& f, OutageModel* model) {
+  const std::vector<Field> items = AsList(f);
+  if (items.size() != 12) {
+    Fail(f, std::to_string(items.size()) +
+                " values given; expected 12 (January to December)");
+  }
+  for (int i = 0; i < 12; ++i) {
+    model->repair_month_factors[i] = AsNumber(items[i], Interval("(]", 0, 10));
+  }
+}
+
+OutageModel ReadOutageModel(const Field& f) {
+  const FieldMap m(f, kOutageModelFields);
+  OutageModel model;
+  LawInput up;
+  LawInput repair;
+  if (const auto law = m.Find("up_times")) up = ReadLaw(*law);
+  if (const auto law = m.Find("repair_times")) repair = ReadLaw(*law);
+  model.up_law = up.law;
+  model.repair_law = repair.law;
+  model.mtbf_h = ReadMean(m, "mtbf_h", "up_times", up, kUpMeanLimits, "up time");
+  model.mttr_h =
+      ReadMean(m, "mttr_h", "repair_times", repair, kRepairMeanLimits, "repair time");
+  if (model.mtbf_h > 0.0 && model.mttr_h == 0.0) {
+    const Field mttr = m.Get("mttr_h");  // a law's own scale never gives 0
+    Fail(mttr, Text(mttr) +
+                   " must be above 0 when mtbf_h is above 0 (a repair "
+                   "takes time); set mtbf_h to 0 for no outages");
+  }
+  if (const auto factors = m.Find("repair_month_factors")) {
+    ReadRepairMonthFactors(*factors, &model);
+  }
+  return model;
+}
+
+PlannedOutage ReadPlannedOutage(const Field& f, NameSet* names) {
+  const FieldMap m(f, kPlannedFields);
+  PlannedOutage outage;
+  outage.name = ReadName(m, "name");
+  names->Add(m.Get("name"), outage.name);
+  outage.from = AsDate(m.Get("from"));
+  const Field to = m.Get("to");
+  outage.to = AsDate(to);
+  if (DaysBetween(outage.from, outage.to) <= 0) {
+    Fail(to, Text(to) + " is not after from (" + FormatDate(outage.from) +
+                 "); the outage runs from 00:00 of from to 00:00 of to (exclusive)");
+  }
+  outage.turbine = ReadBool(m, "turbine", true);
+  outage.daq = ReadBool(m, "data_acquisition", false);
+  if (!outage.turbine && !outage.daq) {
+    Fail(f,
+         "takes neither the turbine nor the data acquisition out of service; set "
+         "turbine or data_acquisition to true");
+  }
+  return outage;
+}
+
+}  // namespace
+
+void ReadOutages(const Field& f, Plan* plan) {
+  const FieldMap m(f, kOutagesFields);
+  if (const auto t = m.Find("turbine")) plan->turbine_outages = ReadOutageModel(*t);
+  if (const auto d = m.Find("data_acquisition")) plan->daq_outages = ReadOutageModel(*d);
+  if (const auto p = m.Find("planned")) {
+    const std::vector<Field> items = AsList(*p);
+    if (items.empty()) {
+      Fail(*p, "is empty; give at least one planned outage, or leave the field out");
+    }
+    NameSet names("planned outage");
+    for (const Field& item : items) {
+      plan->planned_outages.push_back(ReadPlannedOutage(item, &names));
+    }
+  }
+  plan->parked_counts_during_outage = ReadBool(m, "parked_counts_during_outage", false);
+}
+
+}  // namespace io
+}  // namespace planner
