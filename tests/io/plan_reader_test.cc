@@ -97,6 +97,17 @@ TEST(PlanReaderTest, ReadsEveryOptionalField) {
   EXPECT_DOUBLE_EQ(plan.quality_reject_fraction, 0.03);
 }
 
+TEST(PlanReaderTest, ReadsTheCost) {
+  const Plan plan =
+      Parse(kBasePlan + "cost: {weekly: 18500, mobilisation: 240000, currency: GBP}\n");
+  EXPECT_DOUBLE_EQ(plan.cost.weekly, 18500.0);
+  EXPECT_DOUBLE_EQ(plan.cost.mobilisation, 240000.0);
+  EXPECT_EQ(plan.cost.currency, "GBP");
+  const Plan no_cost = Parse(kBasePlan);
+  EXPECT_DOUBLE_EQ(no_cost.cost.weekly, 0.0);
+  EXPECT_EQ(no_cost.cost.currency, "EUR");
+}
+
 TEST(PlanReaderTest, ComponentThatNeverFailsMayHaveNoRepairTime) {
   const Plan plan = Parse(kBasePlan + "outages: {turbine: {mtbf_h: 0, mttr_h: 0}}\n");
   EXPECT_DOUBLE_EQ(plan.turbine_outages.mtbf_h, 0.0);
@@ -117,7 +128,7 @@ struct BadPlan {
 
 const std::string kPlanFields =
     "valid fields: name, site_model, campaign, turbine, valid_sectors_deg, layout, "
-    "outages, curtailment, manual_tests, quality_reject_fraction, capture_matrix";
+    "outages, curtailment, manual_tests, quality_reject_fraction, capture_matrix, cost";
 const std::string kTurbineFields =
     "valid fields: name, rated_power_kw, rotor_diameter_m, hub_height_m, cut_in_ms, "
     "rated_ms, cut_out_ms, restart_ms";
@@ -127,6 +138,9 @@ const std::string kRestartRule =
 std::vector<BadPlan> BadPlans() {
   const std::string& b = kBasePlan;
   return {
+      {"currency not a code", b + "cost: {weekly: 1000, currency: euros}\n",
+       "plan.yaml:9:32: cost.currency: 'euros' is not a currency code; expected three "
+       "capital letters such as EUR, GBP or USD"},
       // The '{' on line 3 is never closed; yaml-cpp notices at the ':' after
       // "turbine" on line 4 (the text after "invalid YAML:" is its own).
       {"syntax error", Replace(b, "2028-03-01}", "2028-03-01"),

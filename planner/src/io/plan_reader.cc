@@ -4,6 +4,7 @@
 // event_cell_reader.cc).
 #include "planner/plan_reader.h"
 
+#include <algorithm>
 #include <cmath>
 #include <cstdint>
 #include <filesystem>
@@ -38,7 +39,9 @@ const std::vector<std::string> kPlanFields = {"name",
                                               "curtailment",
                                               "manual_tests",
                                               "quality_reject_fraction",
-                                              "capture_matrix"};
+                                              "capture_matrix",
+                                              "cost"};
+const std::vector<std::string> kCostFields = {"weekly", "mobilisation", "currency"};
 const std::vector<std::string> kCampaignFields = {"start", "deadline", "horizon_weeks"};
 const std::vector<std::string> kTurbineFields = {
     "name",      "rated_power_kw", "rotor_diameter_m", "hub_height_m",
@@ -136,6 +139,25 @@ void ReadSite(const Field& f, const std::string& base_dir, Plan* plan) {
   plan->site = LoadSiteModel(plan->site_file);
 }
 
+// Campaign cost: weekly running cost and a fixed mobilisation, in `currency`
+// (a 3-letter code; informative, no conversion).
+CostModel ReadCost(const Field& f) {
+  const FieldMap m(f, kCostFields);
+  CostModel cost;
+  cost.weekly = io::ReadNumber(m, "weekly", Interval("[]", 0, 1e9, "per week"), 0.0);
+  cost.mobilisation = io::ReadNumber(m, "mobilisation", Interval("[]", 0, 1e10), 0.0);
+  cost.currency = io::ReadText(m, "currency", "EUR");
+  const bool code = cost.currency.size() == 3 &&
+                    std::all_of(cost.currency.begin(), cost.currency.end(),
+                                [](char c) { return c >= 'A' && c <= 'Z'; });
+  if (!code) {
+    io::Fail(m.Get("currency"), "'" + cost.currency +
+                                    "' is not a currency code; expected three capital "
+                                    "letters such as EUR, GBP or USD");
+  }
+  return cost;
+}
+
 }  // namespace
 
 Plan ParsePlan(const std::string& yaml_text, const std::string& file_name,
@@ -157,6 +179,7 @@ Plan ParsePlan(const std::string& yaml_text, const std::string& file_name,
   if (const auto f = m.Find("manual_tests")) io::ReadManualTests(*f, &plan);
   plan.quality_reject_fraction =
       io::ReadNumber(m, "quality_reject_fraction", Interval("[)", 0, 1), 0.0);
+  if (const auto f = m.Find("cost")) plan.cost = ReadCost(*f);
   // After curtailment and manual tests, which the matrix refers to.
   plan.matrix = io::ReadCaptureMatrix(m.Get("capture_matrix"), plan);
   // Last, so that the plan's own mistakes are reported before the site's.
