@@ -20,6 +20,7 @@ struct ScenarioResult {
   std::string name;  // plan name (or file when names clash)
   std::string file;
   ForecastSummary summary;
+  std::vector<std::string> cell_labels;  // per cell, CellLabel(matrix, cell)
   CostModel cost;
   // Cost at the completion quantiles; nullopt where the quantile is not reached.
   std::optional<double> cost_p50, cost_p80, cost_p90;

@@ -63,6 +63,9 @@ int RunCompare(const CompareArgs& args) {
     r.name = clash ? plans[i].name + " (" + args.plan_paths[i] + ")" : plans[i].name;
     r.file = args.plan_paths[i];
     r.cost = plans[i].cost;
+    for (const Cell& c : plans[i].matrix.cells) {
+      r.cell_labels.push_back(CellLabel(plans[i].matrix, c));
+    }
     r.summary = SummarizeForecast(plans[i].matrix, sim.deadline_steps(), sim.horizon_steps(),
                                   per_run.back(), mc.seed, sim.relaxed_share());
     scenarios.push_back(std::move(r));

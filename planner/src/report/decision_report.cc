@@ -3,6 +3,7 @@
 #include <nlohmann/json.hpp>
 
 #include "report/cautions.h"
+#include "report/report_numbers.h"
 #include "report/text_format.h"
 
 namespace planner {
@@ -11,7 +12,7 @@ namespace {
 using Json = nlohmann::ordered_json;
 
 std::string MoneyText(const std::optional<double>& amount, const std::string& currency) {
-  return amount ? Printf("%.0f %s", *amount, currency.c_str()) : std::string("not reached");
+  return amount ? Money(*amount, currency) : std::string("not reached");
 }
 
 std::string QuantileCell(const QuantileEstimate& q) {
@@ -56,11 +57,11 @@ std::string FormatComparisonText(const Comparison& c, const ReportContext& ctx) 
   std::string out = Printf("fillcast %s - scenario comparison\n", ctx.tool_version.c_str());
   out += Printf("  %ld runs per scenario, seed %llu, common random numbers; ranked by %s\n\n",
                 runs, static_cast<unsigned long long>(seed), RankByName(c.rank_by));
-  out += Printf("  %-2s %-28s %-20s %-20s %-20s %11s\n", "#", "Scenario", "P50 wk (95 % CI)",
+  out += Printf("  %-2s %-28s %-21s %-21s %-21s %11s\n", "#", "Scenario", "P50 wk (95 % CI)",
                 "P80 wk (95 % CI)", "P90 wk (95 % CI)", "P(deadline)");
   for (size_t i = 0; i < c.ranked.size(); ++i) {
     const ScenarioResult& r = c.ranked[i];
-    out += Printf("  %-2zu %-28s %-20s %-20s %-20s %11s\n", i + 1,
+    out += Printf("  %-2zu %-28s %-21s %-21s %-21s %11s\n", i + 1,
                   FitLabel(r.name, 28).c_str(), QuantileCell(r.summary.p50).c_str(),
                   QuantileCell(r.summary.p80).c_str(), QuantileCell(r.summary.p90).c_str(),
                   Percent(r.summary.p_complete_by_deadline).c_str());
@@ -70,8 +71,8 @@ std::string FormatComparisonText(const Comparison& c, const ReportContext& ctx) 
                 "expected (mean)");
   for (size_t i = 0; i < c.ranked.size(); ++i) {
     const ScenarioResult& r = c.ranked[i];
-    const std::string expected = Printf("%s%.0f %s", r.expected_cost_is_lower_bound ? ">= " : "",
-                                        r.expected_cost, r.cost.currency.c_str());
+    const std::string expected = (r.expected_cost_is_lower_bound ? ">= " : "") +
+                                 Money(r.expected_cost, r.cost.currency);
     out += Printf("  %-2zu %-30s %18s %18s %24s\n", i + 1, FitLabel(r.name, 30).c_str(),
                   MoneyText(r.cost_p50, r.cost.currency).c_str(),
                   MoneyText(r.cost_p80, r.cost.currency).c_str(), expected.c_str());
@@ -81,7 +82,10 @@ std::string FormatComparisonText(const Comparison& c, const ReportContext& ctx) 
   for (const ScenarioResult& r : c.ranked) {
     for (const CellForecast* cell : ThinnestCells(r.summary, 3, false)) {
       out += Printf("  %-30s %-44s %8s\n", FitLabel(r.name, 30).c_str(),
-                    FitLabel(CellLabel(cell->cell), 44).c_str(),
+                    FitLabel(cell->index < static_cast<int>(r.cell_labels.size())
+                                 ? r.cell_labels[static_cast<size_t>(cell->index)]
+                                 : CellLabel(cell->cell),
+                             44).c_str(),
                     Percent(cell->p_full_by_deadline).c_str());
     }
   }
