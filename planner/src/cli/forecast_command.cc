@@ -14,6 +14,7 @@
 #include "planner/forecast_report.h"
 #include "planner/monte_carlo.h"
 #include "planner/plan_reader.h"
+#include "planner/report_files.h"
 #include "planner/simulation.h"
 
 namespace planner {
@@ -23,8 +24,54 @@ struct ForecastArgs {
   std::string plan_path;
   RunOptionArgs run;
   std::string json_path;
+  std::string report_path;     // --report: HTML
+  std::string csv_cells_path;  // --csv-cells
+  std::string csv_curve_path;  // --csv-curve
   int thin_rows = 10;
 };
+
+// A path as a POSIX shell word: unchanged when plain, else single-quoted.
+std::string ShellWord(const std::string& text) {
+  if (!text.empty() &&
+      text.find_first_not_of("abcdefghijklmnopqrstuvwxyzABCDEFGHIJKLMNOPQRSTU"
+                             "VWXYZ0123456789_-./+:=@%,") == std::string::npos) {
+    return text;
+  }
+  std::string out = "'";
+  for (const char ch : text) {
+    out += ch == '\'' ? std::string("'\\''") : std::string(1, ch);
+  }
+  return out + "'";
+}
+
+// The command that reproduces this result, for the report's inputs section.
+std::string ReproducingCommand(const ForecastArgs& args) {
+  return "fillcast forecast " + ShellWord(args.plan_path) + " --runs " +
+         std::to_string(args.run.runs) + " --seed " + std::to_string(args.run.seed) +
+         (args.run.threads > 0 ? " --threads " + std::to_string(args.run.threads) : "");
+}
+
+void WriteReportFiles(const ForecastArgs& args, const Plan& plan,
+                      const ForecastSummary& summary, const ReportContext& ctx) {
+  const std::vector<std::string> inputs = {plan.source_file, plan.site_file};
+  if (!args.report_path.empty()) {
+    HtmlReportInput in;
+    in.plan = &plan;
+    in.forecast = &summary;
+    in.context = ctx;
+    in.command_line = ReproducingCommand(args);
+    WriteOutputFile(args.report_path, FormatHtmlReport(in), args.run.force, inputs,
+                    "--report");
+  }
+  if (!args.csv_cells_path.empty()) {
+    WriteOutputFile(args.csv_cells_path, FormatCellsCsv(plan, summary, ctx),
+                    args.run.force, inputs, "--csv-cells");
+  }
+  if (!args.csv_curve_path.empty()) {
+    WriteOutputFile(args.csv_curve_path, FormatCompletionCurveCsv(summary, ctx),
+                    args.run.force, inputs, "--csv-curve");
+  }
+}
 
 int RunForecast(const ForecastArgs& args) {
   const MonteCarloOptions mc = ValidateRunOptions(args.run);
@@ -47,7 +94,10 @@ int RunForecast(const ForecastArgs& args) {
     WriteOutputFile(args.json_path, FormatForecastJson(plan, summary, ctx), args.run.force,
                     {plan.source_file, plan.site_file}, "--json");
   }
-  if (!args.run.quiet || args.json_path.empty()) {
+  WriteReportFiles(args, plan, summary, ctx);
+  const bool wrote_file = !args.json_path.empty() || !args.report_path.empty() ||
+                          !args.csv_cells_path.empty() || !args.csv_curve_path.empty();
+  if (!args.run.quiet || !wrote_file) {
     std::cout << FormatForecastText(plan, summary, ctx);
   }
   return kExitOk;
@@ -63,6 +113,16 @@ CommandAction AddForecastCommand(CLI::App& app) {
       ->required();
   AddRunOptions(cmd, &args->run);
   cmd->add_option("--json", args->json_path, "Also write the full result as JSON to PATH")
+      ->type_name("PATH");
+  cmd->add_option("--report", args->report_path,
+                  "Also write a self-contained HTML report to PATH (opens offline, prints "
+                  "to PDF)")
+      ->type_name("PATH");
+  cmd->add_option("--csv-cells", args->csv_cells_path,
+                  "Also write the cell table as CSV to PATH")
+      ->type_name("PATH");
+  cmd->add_option("--csv-curve", args->csv_curve_path,
+                  "Also write the completion-time curve as CSV to PATH")
       ->type_name("PATH");
   cmd->add_option("--thin", args->thin_rows,
                   "Rows in the table of cells least likely to be full (default 10)")

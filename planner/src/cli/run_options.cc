@@ -24,7 +24,7 @@ void AddRunOptions(CLI::App* cmd, RunOptionArgs* args) {
   cmd->add_option("--threads", args->threads, "Worker threads (default 0 = all cores)")
       ->type_name("T");
   cmd->add_flag("--quiet,-q", args->quiet,
-                "No progress line; with --json, no terminal summary either");
+                "No progress line; with any output file, no terminal summary either");
   cmd->add_flag("--force", args->force,
                 "Overwrite output files even if fillcast did not write them");
 }
