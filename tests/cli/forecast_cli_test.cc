@@ -113,3 +113,28 @@ TEST(ForecastCliTest, VersionAndHelp) {
 }
 
 }  // namespace
+
+namespace {
+
+// --precision adds runs (doubling) until the interval is narrow enough, and
+// says so in the JSON; the runs it ends with are a power-of-two multiple of
+// --runs.
+TEST(ForecastCliTest, PrecisionAddsRunsUntilTheIntervalIsNarrow) {
+  const auto dir = fillcast_test::TempDir("precision");
+  const fillcast_test::Outcome o = fillcast_test::RunFillcast(
+      "forecast " + fillcast_test::SourcePath("demo-site/plan.yaml") +
+      " --runs 50 --precision 4 --precision-of p50 --quiet --json " + (dir / "p.json").string());
+  ASSERT_EQ(o.exit_code, 0) << o.output;
+  const nlohmann::json j = fillcast_test::ReadJson(dir / "p.json");
+  EXPECT_EQ(j["precision"]["met"], true);
+  EXPECT_LE(j["precision"]["ci95_width_weeks"].get<double>(), 4.0);
+  const auto& ci = j["completion_weeks"]["ci95"]["p50"];
+  EXPECT_NEAR(ci[1].get<double>() - ci[0].get<double>(),
+              j["precision"]["ci95_width_weeks"].get<double>(), 1e-9);
+  const long runs = j["runs"].get<long>();
+  EXPECT_EQ(runs % 50, 0);
+  EXPECT_EQ((runs / 50) & (runs / 50 - 1), 0);  // 50 x 2^k
+  std::filesystem::remove_all(dir);
+}
+
+}  // namespace

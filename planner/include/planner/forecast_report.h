@@ -14,6 +14,13 @@ struct ReportContext {
   std::string tool_version;
   int threads = 1;
   int thin_cell_rows = 10;  // rows in the thin-cell table
+  // Set when runs were added until a quantile's 95 % interval was narrow
+  // enough (--precision): what was asked and what was reached.
+  bool precision_used = false;
+  double precision_quantile = 0.8;
+  double precision_target_weeks = 0;
+  double precision_width_weeks = 0;  // +infinity when the interval is open
+  bool precision_met = false;
 };
 
 // Plain-text summary for the terminal, ending with the cautions.

@@ -28,7 +28,17 @@ struct ForecastArgs {
   std::string csv_cells_path;  // --csv-cells
   std::string csv_curve_path;  // --csv-curve
   int thin_rows = 10;
+  double precision_weeks = 0;           // --precision; 0 = off
+  std::string precision_quantile = "p80";
+  int max_runs = 100000;
 };
+
+double ParseQuantile(const std::string& text) {
+  if (text == "p50") return 0.5;
+  if (text == "p80") return 0.8;
+  if (text == "p90") return 0.9;
+  throw InputError("--precision-of: '" + text + "' is invalid; expected p50, p80 or p90");
+}
 
 // A path as a POSIX shell word: unchanged when plain, else single-quoted.
 std::string ShellWord(const std::string& text) {
@@ -82,11 +92,33 @@ int RunForecast(const ForecastArgs& args) {
   const Plan plan = LoadPlan(args.plan_path);
   const Simulator sim(plan);
   TerminalProgress progress("runs", args.run.quiet);
-  const std::vector<RunResult> runs = RunMonteCarlo(sim, mc, &progress);
-  const ForecastSummary summary = SummarizeForecast(
-      plan.matrix, sim.deadline_steps(), sim.horizon_steps(), runs, mc.seed);
-
   ReportContext ctx;
+  std::vector<RunResult> runs;
+  if (args.precision_weeks > 0) {
+    const double q = ParseQuantile(args.precision_quantile);
+    if (args.max_runs < mc.runs || args.max_runs > 10000000) {
+      throw InputError("--max-runs: " + std::to_string(args.max_runs) +
+                       " is invalid; expected a whole number from --runs (" +
+                       std::to_string(mc.runs) + ") to 10000000");
+    }
+    PrecisionResult p = RunToPrecision(sim, mc, q, args.precision_weeks, args.max_runs,
+                                       &progress);
+    runs = std::move(p.runs);
+    ctx.precision_used = true;
+    ctx.precision_quantile = q;
+    ctx.precision_target_weeks = args.precision_weeks;
+    ctx.precision_width_weeks = p.ci_width_weeks;
+    ctx.precision_met = p.target_met;
+  } else if (args.precision_weeks < 0) {
+    throw InputError("--precision: " + std::to_string(args.precision_weeks) +
+                     " is invalid; expected a width in weeks above 0");
+  } else {
+    runs = RunMonteCarlo(sim, mc, &progress);
+  }
+  const ForecastSummary summary =
+      SummarizeForecast(plan.matrix, sim.deadline_steps(), sim.horizon_steps(), runs, mc.seed,
+                        sim.relaxed_share());
+
   ctx.tool_version = FILLCAST_VERSION;
   ctx.threads = EffectiveThreads(mc.threads);
   ctx.thin_cell_rows = args.thin_rows;
@@ -127,6 +159,17 @@ CommandAction AddForecastCommand(CLI::App& app) {
   cmd->add_option("--thin", args->thin_rows,
                   "Rows in the table of cells least likely to be full (default 10)")
       ->type_name("N");
+  cmd->add_option("--precision", args->precision_weeks,
+                  "Add runs (doubling from --runs) until the 95 % interval of the chosen "
+                  "quantile is at most WEEKS wide")
+      ->type_name("WEEKS");
+  cmd->add_option("--precision-of", args->precision_quantile,
+                  "Quantile for --precision: p50, p80 or p90")
+      ->type_name("Q")
+      ->capture_default_str();
+  cmd->add_option("--max-runs", args->max_runs, "Cap on runs for --precision")
+      ->type_name("N")
+      ->capture_default_str();
   return [cmd, args]() { return cmd->parsed() ? RunForecast(*args) : -1; };
 }
 

@@ -63,6 +63,17 @@ std::string TextHeader(const Plan& plan, const ForecastSummary& s,
   out += Printf("  Runs:      %ld (seed %llu, %d thread%s)\n", s.runs,
                 static_cast<unsigned long long>(s.seed), ctx.threads,
                 ctx.threads == 1 ? "" : "s");
+  if (ctx.precision_used) {
+    const std::string width = std::isfinite(ctx.precision_width_weeks)
+                                  ? Printf("%.2f weeks", ctx.precision_width_weeks)
+                                  : std::string("open (runs incomplete)");
+    out += Wrap("  Precision: ",
+                Printf("runs added until the 95 %% interval of P%.0f was at most %.2f weeks "
+                       "wide: %s after %ld runs%s",
+                       100.0 * ctx.precision_quantile, ctx.precision_target_weeks,
+                       width.c_str(), s.runs,
+                       ctx.precision_met ? "" : " (the cap on runs was reached first)"));
+  }
   return out;
 }
 
@@ -269,6 +280,15 @@ std::string FormatForecastJson(const Plan& plan, const ForecastSummary& s,
                {"deadline", FormatDate(plan.deadline)},
                {"horizon_weeks", s.horizon_weeks}};
   j["runs"] = s.runs;
+  if (ctx.precision_used) {
+    j["precision"] = {
+        {"quantile", ctx.precision_quantile},
+        {"target_weeks", ctx.precision_target_weeks},
+        {"ci95_width_weeks", std::isfinite(ctx.precision_width_weeks)
+                                 ? Json(ctx.precision_width_weeks)
+                                 : Json(nullptr)},
+        {"met", ctx.precision_met}};
+  }
   j["seed"] = s.seed;
   j["deadline_weeks"] = s.deadline_weeks;
   j["completion_weeks"] = CompletionJson(s);
