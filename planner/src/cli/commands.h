@@ -19,6 +19,7 @@ CommandAction AddForecastCommand(CLI::App& app);
 CommandAction AddCompareCommand(CLI::App& app);
 CommandAction AddStartSweepCommand(CLI::App& app);
 CommandAction AddSectorsCommand(CLI::App& app);
+CommandAction AddFitSiteCommand(CLI::App& app);
 
 // Exit codes.
 inline constexpr int kExitOk = 0;

@@ -24,7 +24,9 @@ int main(int argc, char** argv) {
   app.footer(
       "A forecast is an estimate, not a promise. See README.md and docs/ for the "
       "file formats and methods.");
-  std::vector<CommandAction> actions = {AddForecastCommand(app)};
+  std::vector<CommandAction> actions = {AddForecastCommand(app), AddCompareCommand(app),
+                                        AddStartSweepCommand(app), AddSectorsCommand(app),
+                                        AddFitSiteCommand(app)};
   std::string names;
   bool known = false;
   for (const CLI::App* sub : app.get_subcommands({})) {
