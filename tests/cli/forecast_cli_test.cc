@@ -98,6 +98,10 @@ INSTANTIATE_TEST_SUITE_P(
         BadFlagCase{"forecast " + Demo() + " --runs many", "--runs"},
         BadFlagCase{"forecast /nonexistent/plan.yaml", "/nonexistent/plan.yaml"},
         BadFlagCase{"forecast", "plan is required"},
+        BadFlagCase{"forecast " + Demo() + " --relax 1.5",
+                    "--relax: 1.5 is invalid; expected a share above 0 and below 1"},
+        BadFlagCase{"forecast " + Demo() + " --precision 1 --precision-of p99",
+                    "--precision-of: 'p99' is invalid; expected p50, p80 or p90"},
         BadFlagCase{"frobnicate",
                     "'frobnicate' is not a fillcast command; expected one of: forecast"}));
 

@@ -31,6 +31,7 @@ struct ForecastArgs {
   double precision_weeks = 0;           // --precision; 0 = off
   std::string precision_quantile = "p80";
   int max_runs = 100000;
+  double relaxed_share = 0.8;  // --relax: lowered minimum for the what-if
 };
 
 double ParseQuantile(const std::string& text) {
@@ -90,7 +91,14 @@ int RunForecast(const ForecastArgs& args) {
                      " is invalid; expected a whole number >= 0");
   }
   const Plan plan = LoadPlan(args.plan_path);
-  const Simulator sim(plan);
+  if (!(args.relaxed_share > 0.0 && args.relaxed_share < 1.0)) {
+    throw InputError("--relax: " + FlagNumber(args.relaxed_share) +
+                     " is invalid; expected a share above 0 and below 1 (0.8 = each "
+                     "minimum lowered by 20 %)");
+  }
+  SimulationOptions sim_options;
+  sim_options.relaxed_share = args.relaxed_share;
+  const Simulator sim(plan, sim_options);
   TerminalProgress progress("runs", args.run.quiet);
   ReportContext ctx;
   std::vector<RunResult> runs;
@@ -110,7 +118,7 @@ int RunForecast(const ForecastArgs& args) {
     ctx.precision_width_weeks = p.ci_width_weeks;
     ctx.precision_met = p.target_met;
   } else if (args.precision_weeks < 0) {
-    throw InputError("--precision: " + std::to_string(args.precision_weeks) +
+    throw InputError("--precision: " + FlagNumber(args.precision_weeks) +
                      " is invalid; expected a width in weeks above 0");
   } else {
     runs = RunMonteCarlo(sim, mc, &progress);
@@ -159,6 +167,10 @@ CommandAction AddForecastCommand(CLI::App& app) {
   cmd->add_option("--thin", args->thin_rows,
                   "Rows in the table of cells least likely to be full (default 10)")
       ->type_name("N");
+  cmd->add_option("--relax", args->relaxed_share,
+                  "Share of each cell's minimum for the 'what if it were lowered' column")
+      ->type_name("S")
+      ->capture_default_str();
   cmd->add_option("--precision", args->precision_weeks,
                   "Add runs (doubling from --runs) until the 95 % interval of the chosen "
                   "quantile is at most WEEKS wide")

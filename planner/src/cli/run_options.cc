@@ -2,6 +2,7 @@
 
 #include <CLI/CLI.hpp>
 
+#include <sstream>
 #include <string>
 
 #include "planner/error.h"
@@ -27,6 +28,12 @@ void AddRunOptions(CLI::App* cmd, RunOptionArgs* args) {
                 "No progress line; with any output file, no terminal summary either");
   cmd->add_flag("--force", args->force,
                 "Overwrite output files even if fillcast did not write them");
+}
+
+std::string FlagNumber(double x) {
+  std::ostringstream out;
+  out << x;
+  return out.str();
 }
 
 MonteCarloOptions ValidateRunOptions(const RunOptionArgs& args) {

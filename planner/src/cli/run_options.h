@@ -3,6 +3,7 @@
 #define PLANNER_CLI_RUN_OPTIONS_H_
 
 #include <cstdint>
+#include <string>
 
 #include "planner/monte_carlo.h"
 
@@ -22,6 +23,9 @@ struct RunOptionArgs {
 
 // Adds --runs, --seed, --threads, --quiet, --force.
 void AddRunOptions(CLI::App* cmd, RunOptionArgs* args);
+
+// A flag's number as the user would write it ("1.5", not "1.500000").
+std::string FlagNumber(double x);
 
 // Checks ranges (InputError naming the flag) and fills MonteCarloOptions.
 MonteCarloOptions ValidateRunOptions(const RunOptionArgs& args);
