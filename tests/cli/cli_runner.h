@@ -19,10 +19,11 @@ struct Outcome {
   std::string output;  // stdout and stderr together
 };
 
-inline Outcome RunFillcast(const std::string& args) {
-  const std::string cmd = std::string(FILLCAST_BINARY) + " " + args + " 2>&1";
+// Runs a shell command line; output is what it writes to stdout (add 2>&1 to
+// the command for stderr too).
+inline Outcome RunShell(const std::string& command) {
   Outcome o;
-  FILE* pipe = popen(cmd.c_str(), "r");
+  FILE* pipe = popen(command.c_str(), "r");
   if (pipe == nullptr) return o;
   char buf[4096];
   size_t n;
@@ -30,6 +31,10 @@ inline Outcome RunFillcast(const std::string& args) {
   const int status = pclose(pipe);
   o.exit_code = WIFEXITED(status) ? WEXITSTATUS(status) : -1;
   return o;
+}
+
+inline Outcome RunFillcast(const std::string& args) {
+  return RunShell(std::string(FILLCAST_BINARY) + " " + args + " 2>&1");
 }
 
 inline std::string SourcePath(const std::string& relative) {

@@ -37,15 +37,9 @@ std::string ReadFile(const fs::path& p) {
 
 // Runs a shell command; returns its stdout and sets its exit code.
 std::string Shell(const std::string& command, int* exit_code) {
-  std::string out;
-  FILE* pipe = popen(command.c_str(), "r");
-  if (pipe == nullptr) return out;
-  char buf[4096];
-  size_t n;
-  while ((n = fread(buf, 1, sizeof buf, pipe)) > 0) out.append(buf, n);
-  const int status = pclose(pipe);
-  *exit_code = WIFEXITED(status) ? WEXITSTATUS(status) : -1;
-  return out;
+  const fillcast_test::Outcome o = fillcast_test::RunShell(command);
+  *exit_code = o.exit_code;
+  return o.output;
 }
 
 std::string FindChromium() {

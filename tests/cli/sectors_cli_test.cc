@@ -2,7 +2,6 @@
 // on small plans whose answers follow by hand from IEC 61400-12-1 Annex A and
 // the shipped coastal-ridge site model.
 #include <gtest/gtest.h>
-#include <sys/wait.h>
 #include <unistd.h>
 
 #include <boost/math/distributions/weibull.hpp>
@@ -14,27 +13,14 @@
 #include <sstream>
 #include <string>
 
+#include "cli/cli_runner.h"
+
 namespace {
 
 namespace fs = std::filesystem;
 
-struct Outcome {
-  int exit_code = -1;
-  std::string output;  // stdout and stderr together
-};
-
-Outcome RunFillcast(const std::string& args) {
-  const std::string cmd = std::string(FILLCAST_BINARY) + " " + args + " 2>&1";
-  Outcome o;
-  FILE* pipe = popen(cmd.c_str(), "r");
-  if (pipe == nullptr) return o;
-  char buf[4096];
-  size_t n;
-  while ((n = fread(buf, 1, sizeof buf, pipe)) > 0) o.output.append(buf, n);
-  const int status = pclose(pipe);
-  o.exit_code = WIFEXITED(status) ? WEXITSTATUS(status) : -1;
-  return o;
-}
+using fillcast_test::Outcome;
+using fillcast_test::RunFillcast;
 
 std::string Demo() { return std::string(FILLCAST_SOURCE_DIR) + "/demo-site/plan.yaml"; }
 
