@@ -72,7 +72,9 @@ void ExpectConsistentGrids(const CaptureMatrix& m) {
     events_started = events_started || is_event;
     EXPECT_EQ(is_event, events_started) << "record cell after an event cell: " << i;
     EXPECT_EQ(references[i], is_event ? 0 : 1) << i;
-    if (is_event) EXPECT_LT(m.cells[i].event, static_cast<int>(m.event_types.size()));
+    if (is_event) {
+      EXPECT_LT(m.cells[i].event, static_cast<int>(m.event_types.size()));
+    }
   }
 }
 
