@@ -27,8 +27,8 @@ void BM_SingleCoreRuns(benchmark::State& state) {
     sim.Run(1, run++, &result);
     steps += result.simulated_steps;
   }
-  state.counters["steps_per_s"] = benchmark::Counter(static_cast<double>(steps),
-                                                     benchmark::Counter::kIsRate);
+  state.counters["steps_per_s"] =
+      benchmark::Counter(static_cast<double>(steps), benchmark::Counter::kIsRate);
 }
 BENCHMARK(BM_SingleCoreRuns)->Unit(benchmark::kMillisecond)->MinTime(2.0);
 
@@ -45,10 +45,14 @@ void BM_MonteCarloThreads(benchmark::State& state) {
     for (const auto& r : results) steps += r.simulated_steps;
     mc.seed++;
   }
-  state.counters["steps_per_s"] = benchmark::Counter(static_cast<double>(steps),
-                                                     benchmark::Counter::kIsRate);
+  state.counters["steps_per_s"] =
+      benchmark::Counter(static_cast<double>(steps), benchmark::Counter::kIsRate);
 }
-BENCHMARK(BM_MonteCarloThreads)->Arg(1)->Arg(2)->Unit(benchmark::kMillisecond)->UseRealTime();
+BENCHMARK(BM_MonteCarloThreads)
+    ->Arg(1)
+    ->Arg(2)
+    ->Unit(benchmark::kMillisecond)
+    ->UseRealTime();
 
 }  // namespace
 

@@ -15,8 +15,9 @@ using fillcast_test::SourcePath;
 TEST(DecisionCliTest, PlanComparedWithItselfHasZeroPairedDifference) {
   const auto dir = fillcast_test::TempDir("compare");
   const std::string demo = SourcePath("demo-site/plan.yaml");
-  const Outcome o = RunFillcast("compare " + demo + " " + demo + " --runs 150 --quiet --json " +
-                                (dir / "c.json").string());
+  const Outcome o =
+      RunFillcast("compare " + demo + " " + demo + " --runs 150 --quiet --json " +
+                  (dir / "c.json").string());
   ASSERT_EQ(o.exit_code, 0) << o.output;
   const nlohmann::json j = ReadJson(dir / "c.json");
   ASSERT_EQ(j["scenarios"].size(), 2u);
@@ -36,8 +37,9 @@ TEST(DecisionCliTest, CompareNeedsTwoPlansAndAKnownRanking) {
       << o.output;
   o = RunFillcast("compare " + demo + " " + demo + " --rank-by fastest");
   EXPECT_EQ(o.exit_code, 2);
-  EXPECT_NE(o.output.find("--rank-by: 'fastest' is invalid; expected p50, p80, p90 or cost"),
-            std::string::npos)
+  EXPECT_NE(
+      o.output.find("--rank-by: 'fastest' is invalid; expected p50, p80, p90 or cost"),
+      std::string::npos)
       << o.output;
 }
 
@@ -46,7 +48,8 @@ TEST(DecisionCliTest, CompareNeedsTwoPlansAndAKnownRanking) {
 TEST(DecisionCliTest, StartSweepRowOfTheOwnStartMatchesTheForecast) {
   const auto dir = fillcast_test::TempDir("sweep");
   const std::string demo = SourcePath("demo-site/plan.yaml");
-  ASSERT_EQ(RunFillcast("start-sweep " + demo + " --months 2 --runs 120 --seed 5 --quiet --json " +
+  ASSERT_EQ(RunFillcast("start-sweep " + demo +
+                        " --months 2 --runs 120 --seed 5 --quiet --json " +
                         (dir / "s.json").string())
                 .exit_code,
             0);

@@ -2,14 +2,14 @@
 // (the way Ninja's output tests run the real program).
 #include <gtest/gtest.h>
 
-#include "cli/cli_runner.h"
-
 #include <cstdio>
 #include <filesystem>
 #include <fstream>
 #include <nlohmann/json.hpp>
 #include <sstream>
 #include <string>
+
+#include "cli/cli_runner.h"
 
 namespace {
 
@@ -32,10 +32,12 @@ TEST(ForecastCliTest, DemoForecastPrintsSummaryAndCautions) {
 
 TEST(ForecastCliTest, SameSeedSameJsonForOneAndTwoThreads) {
   const fs::path dir = TempDir();
-  const Outcome a = RunFillcast("forecast " + Demo() + " --runs 300 --seed 11 --threads 1 " +
-                                "--quiet --json " + (dir / "one.json").string());
-  const Outcome b = RunFillcast("forecast " + Demo() + " --runs 300 --seed 11 --threads 2 " +
-                                "--quiet --json " + (dir / "two.json").string());
+  const Outcome a =
+      RunFillcast("forecast " + Demo() + " --runs 300 --seed 11 --threads 1 " +
+                  "--quiet --json " + (dir / "one.json").string());
+  const Outcome b =
+      RunFillcast("forecast " + Demo() + " --runs 300 --seed 11 --threads 2 " +
+                  "--quiet --json " + (dir / "two.json").string());
   ASSERT_EQ(a.exit_code, 0) << a.output;
   ASSERT_EQ(b.exit_code, 0) << b.output;
   nlohmann::json one = ReadJson(dir / "one.json");
@@ -63,10 +65,14 @@ TEST(ForecastCliTest, RefusesToOverwriteAFileItDidNotWrite) {
   EXPECT_EQ(kept.str(), "{\"my\": \"notes\"}\n");
   // Its own output it replaces without asking.
   const fs::path ours = dir / "ours.json";
-  ASSERT_EQ(RunFillcast("forecast " + Demo() + " --runs 20 --quiet --json " + ours.string())
-                .exit_code, 0);
-  EXPECT_EQ(RunFillcast("forecast " + Demo() + " --runs 20 --quiet --json " + ours.string())
-                .exit_code, 0);
+  ASSERT_EQ(
+      RunFillcast("forecast " + Demo() + " --runs 20 --quiet --json " + ours.string())
+          .exit_code,
+      0);
+  EXPECT_EQ(
+      RunFillcast("forecast " + Demo() + " --runs 20 --quiet --json " + ours.string())
+          .exit_code,
+      0);
   fs::remove_all(dir);
 }
 
@@ -102,8 +108,9 @@ INSTANTIATE_TEST_SUITE_P(
                     "--relax: 1.5 is invalid; expected a share above 0 and below 1"},
         BadFlagCase{"forecast " + Demo() + " --precision 1 --precision-of p99",
                     "--precision-of: 'p99' is invalid; expected p50, p80 or p90"},
-        BadFlagCase{"frobnicate",
-                    "'frobnicate' is not a fillcast command; expected one of: forecast"}));
+        BadFlagCase{
+            "frobnicate",
+            "'frobnicate' is not a fillcast command; expected one of: forecast"}));
 
 TEST(ForecastCliTest, VersionAndHelp) {
   const Outcome v = RunFillcast("--version");
@@ -127,7 +134,8 @@ TEST(ForecastCliTest, PrecisionAddsRunsUntilTheIntervalIsNarrow) {
   const auto dir = fillcast_test::TempDir("precision");
   const fillcast_test::Outcome o = fillcast_test::RunFillcast(
       "forecast " + fillcast_test::SourcePath("demo-site/plan.yaml") +
-      " --runs 50 --precision 4 --precision-of p50 --quiet --json " + (dir / "p.json").string());
+      " --runs 50 --precision 4 --precision-of p50 --quiet --json " +
+      (dir / "p.json").string());
   ASSERT_EQ(o.exit_code, 0) << o.output;
   const nlohmann::json j = fillcast_test::ReadJson(dir / "p.json");
   EXPECT_EQ(j["precision"]["met"], true);

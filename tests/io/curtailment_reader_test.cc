@@ -48,12 +48,9 @@ const std::string kTests =
     "      min_interval_h: 24\n"
     "    - {name: grid_loss, wind_ms: [8, 16]}\n";
 
-Plan Parse(const std::string& text) {
-  return ParsePlan(text, "plan.yaml", SourcePath("site-models"));
-}
-
+Plan Parse(const std::string& text) { return reader_test::ParseTestPlan(text); }
 std::string PlanError(const std::string& text) {
-  return ErrorOf([&] { Parse(text); });
+  return reader_test::TestPlanError(text);
 }
 
 TEST(CurtailmentReaderTest, ReadsRulesWithTheirConditions) {
@@ -121,11 +118,7 @@ TEST(ManualTestReaderTest, CrewMayBeLeftOutAndWorkWeekends) {
   ASSERT_EQ(no_crew.manual_tests.size(), 1u);
 }
 
-struct BadInput {
-  const char* name;
-  std::string text;
-  std::string message;
-};
+using reader_test::BadInput;
 
 const char kEmptyWindow[] =
     " is an empty window; hours run from the first to the second and may wrap past "
@@ -193,10 +186,7 @@ std::vector<BadInput> BadCurtailment() {
 }
 
 TEST(CurtailmentReaderTest, RejectsBadInputWithExactMessages) {
-  for (const BadInput& c : BadCurtailment()) {
-    SCOPED_TRACE(c.name);
-    EXPECT_EQ(PlanError(c.text), c.message);
-  }
+  reader_test::ExpectMessages(BadCurtailment(), PlanError);
 }
 
 std::vector<BadInput> BadManualTests() {
@@ -245,10 +235,7 @@ std::vector<BadInput> BadManualTests() {
 }
 
 TEST(ManualTestReaderTest, RejectsBadInputWithExactMessages) {
-  for (const BadInput& c : BadManualTests()) {
-    SCOPED_TRACE(c.name);
-    EXPECT_EQ(PlanError(c.text), c.message);
-  }
+  reader_test::ExpectMessages(BadManualTests(), PlanError);
 }
 
 }  // namespace

@@ -34,12 +34,9 @@ const std::string kBase =
     "      wind_ms: [3, 5]\n"
     "      min_records: 8\n";
 
-Plan Parse(const std::string& text) {
-  return ParsePlan(text, "plan.yaml", SourcePath("site-models"));
-}
-
+Plan Parse(const std::string& text) { return reader_test::ParseTestPlan(text); }
 std::string PlanError(const std::string& text) {
-  return ErrorOf([&] { Parse(text); });
+  return reader_test::TestPlanError(text);
 }
 
 TEST(EventCellReaderTest, EventCellsFollowTheRecordCellsWithTypesInFirstSeenOrder) {
@@ -103,11 +100,7 @@ TEST(EventCellReaderTest, ReducedGridComesAfterParkedAndBeforeEvents) {
   EXPECT_EQ(m.cells[4].event, 0);
 }
 
-struct BadInput {
-  const char* name;
-  std::string text;
-  std::string message;
-};
+using reader_test::BadInput;
 
 const std::string kEvent0 = "capture_matrix.events[0]";
 
@@ -179,10 +172,7 @@ std::vector<BadInput> BadInputs() {
 }
 
 TEST(EventCellReaderTest, RejectsBadInputWithExactMessages) {
-  for (const BadInput& c : BadInputs()) {
-    SCOPED_TRACE(c.name);
-    EXPECT_EQ(PlanError(c.text), c.message);
-  }
+  reader_test::ExpectMessages(BadInputs(), PlanError);
 }
 
 }  // namespace

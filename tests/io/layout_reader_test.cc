@@ -38,12 +38,9 @@ const std::string kNeighbour =
     "      distance_m: 400\n"
     "      rotor_diameter_m: 100\n";
 
-Plan Parse(const std::string& text) {
-  return ParsePlan(text, "plan.yaml", SourcePath("site-models"));
-}
-
+Plan Parse(const std::string& text) { return reader_test::ParseTestPlan(text); }
 std::string PlanError(const std::string& text) {
-  return ErrorOf([&] { Parse(text); });
+  return reader_test::TestPlanError(text);
 }
 
 void ExpectRange(const AngleRange& r, double from_deg, double to_deg) {
@@ -124,11 +121,7 @@ TEST(LayoutReaderTest, NoLayoutKeepsTheWrittenSectors) {
   ExpectRange(plan.valid_sectors[0], 300, 60);
 }
 
-struct BadInput {
-  const char* name;
-  std::string text;
-  std::string message;
-};
+using reader_test::BadInput;
 
 const std::string kNeighbour0 = "layout.neighbours[0]";
 
@@ -217,10 +210,7 @@ std::vector<BadInput> BadInputs() {
 }
 
 TEST(LayoutReaderTest, RejectsBadInputWithExactMessages) {
-  for (const BadInput& c : BadInputs()) {
-    SCOPED_TRACE(c.name);
-    EXPECT_EQ(PlanError(c.text), c.message);
-  }
+  reader_test::ExpectMessages(BadInputs(), PlanError);
 }
 
 }  // namespace

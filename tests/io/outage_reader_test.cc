@@ -44,12 +44,9 @@ const std::string kPlanned =
     "      from: 2027-07-12\n"
     "      to: 2027-07-19\n";
 
-Plan Parse(const std::string& text) {
-  return ParsePlan(text, "plan.yaml", SourcePath("site-models"));
-}
-
+Plan Parse(const std::string& text) { return reader_test::ParseTestPlan(text); }
 std::string PlanError(const std::string& text) {
-  return ErrorOf([&] { Parse(text); });
+  return reader_test::TestPlanError(text);
 }
 
 TEST(OutageReaderTest, DefaultsAreExponentialWithoutMonthFactorsOrPlannedOutages) {
@@ -118,11 +115,7 @@ TEST(OutageReaderTest, ReadsPlannedOutagesWithTheirDefaults) {
   EXPECT_TRUE(b.daq);
 }
 
-struct BadInput {
-  const char* name;
-  std::string text;
-  std::string message;
-};
+using reader_test::BadInput;
 
 const char kMissingMean[] =
     "required field is missing; give the mean up time, or up_times with the law's "
@@ -202,10 +195,7 @@ std::vector<BadInput> BadInputs() {
 }
 
 TEST(OutageReaderTest, RejectsBadInputWithExactMessages) {
-  for (const BadInput& c : BadInputs()) {
-    SCOPED_TRACE(c.name);
-    EXPECT_EQ(PlanError(c.text), c.message);
-  }
+  reader_test::ExpectMessages(BadInputs(), PlanError);
 }
 
 }  // namespace

@@ -2,10 +2,14 @@
 #ifndef FILLCAST_TESTS_IO_READER_TEST_UTIL_H_
 #define FILLCAST_TESTS_IO_READER_TEST_UTIL_H_
 
+#include <gtest/gtest.h>
+
 #include <functional>
 #include <string>
+#include <vector>
 
 #include "planner/error.h"
+#include "planner/plan_reader.h"
 
 namespace planner {
 namespace reader_test {
@@ -31,6 +35,32 @@ inline std::string ErrorOf(const std::function<void()>& action) {
 
 inline std::string SourcePath(const std::string& relative) {
   return std::string(FILLCAST_SOURCE_DIR) + "/" + relative;
+}
+
+// A plan text read as "plan.yaml" next to the shipped site models.
+inline Plan ParseTestPlan(const std::string& text) {
+  return ParsePlan(text, "plan.yaml", SourcePath("site-models"));
+}
+
+inline std::string TestPlanError(const std::string& text) {
+  return ErrorOf([&] { ParseTestPlan(text); });
+}
+
+// One bad input and the exact message it must give.
+struct BadInput {
+  const char* name;
+  std::string text;
+  std::string message;
+};
+
+// Each case's text, read by `error_of`, gives exactly its message.
+inline void ExpectMessages(
+    const std::vector<BadInput>& cases,
+    const std::function<std::string(const std::string&)>& error_of) {
+  for (const BadInput& c : cases) {
+    SCOPED_TRACE(c.name);
+    EXPECT_EQ(error_of(c.text), c.message);
+  }
 }
 
 }  // namespace reader_test

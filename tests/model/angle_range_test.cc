@@ -13,7 +13,7 @@ TEST(AngleRangeTest, WrapThroughNorthIsOneRange) {
   EXPECT_TRUE(AngleRangeContains(r, 19.9));
   EXPECT_FALSE(AngleRangeContains(r, 20));  // [from, to)
   EXPECT_FALSE(AngleRangeContains(r, 180));
-  EXPECT_TRUE(AngleRangeContains(r, -5));   // taken modulo 360
+  EXPECT_TRUE(AngleRangeContains(r, -5));  // taken modulo 360
 }
 
 TEST(AngleRangeTest, FullAndEmptyCircle) {

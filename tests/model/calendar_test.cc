@@ -20,7 +20,8 @@ TEST(CalendarTest, DaysFromCivilMatchesLibcTimegm) {
   for (int y : {1961, 1970, 1999, 2000, 2024, 2027, 2100}) {
     for (int m = 1; m <= 12; ++m) {
       for (int d : {1, 15, 28}) {
-        EXPECT_EQ(DaysFromCivil({y, m, d}), LibcDays(y, m, d)) << y << "-" << m << "-" << d;
+        EXPECT_EQ(DaysFromCivil({y, m, d}), LibcDays(y, m, d))
+            << y << "-" << m << "-" << d;
       }
     }
   }

@@ -56,9 +56,9 @@ TEST(TurbulenceTest, TableModelUsesRowOfTheSpeedAndNearestOutside) {
   t.kind = TurbulenceModel::Kind::kTable;
   t.table = {{4, 8, 0.15, 0.04}, {8, 12, 0.12, 0.03}, {14, 20, 0.10, 0.02}};
   EXPECT_NEAR(SigmaMomentsAt(t, 9.0).mean_ms, 0.12 * 9.0, 1e-12);
-  EXPECT_NEAR(SigmaMomentsAt(t, 2.0).mean_ms, 0.15 * 2.0, 1e-12);   // below: first row
-  EXPECT_NEAR(SigmaMomentsAt(t, 25.0).mean_ms, 0.10 * 25.0, 1e-12); // above: last row
-  EXPECT_NEAR(SigmaMomentsAt(t, 12.5).std_ms, 0.03 * 12.5, 1e-12);  // gap: nearer row
+  EXPECT_NEAR(SigmaMomentsAt(t, 2.0).mean_ms, 0.15 * 2.0, 1e-12);    // below: first row
+  EXPECT_NEAR(SigmaMomentsAt(t, 25.0).mean_ms, 0.10 * 25.0, 1e-12);  // above: last row
+  EXPECT_NEAR(SigmaMomentsAt(t, 12.5).std_ms, 0.03 * 12.5, 1e-12);   // gap: nearer row
   EXPECT_NEAR(SigmaMomentsAt(t, 13.8).std_ms, 0.02 * 13.8, 1e-12);
 }
 

@@ -50,7 +50,8 @@ TEST_P(WeibullTest, BinProbabilityIsCdfDifference) {
 // Typical hub-height climates (common practice: k between 1.5 and 3).
 INSTANTIATE_TEST_SUITE_P(HubHeightClimates, WeibullTest,
                          ::testing::Values(WeibullCase{6.8, 1.7}, WeibullCase{9.6, 2.2},
-                                           WeibullCase{11.3, 2.9}, WeibullCase{4.0, 1.2}));
+                                           WeibullCase{11.3, 2.9},
+                                           WeibullCase{4.0, 1.2}));
 
 }  // namespace
 }  // namespace planner

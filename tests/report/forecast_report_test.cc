@@ -258,10 +258,12 @@ TEST(ForecastReportTextTest, HasLabelledRowsDatesAndCautions) {
   ASSERT_NE(low_row, std::string::npos) << text;
   EXPECT_LT(mid_row, low_row);
   EXPECT_EQ(flat.find(storm), std::string::npos);  // optional cell left out
-  EXPECT_NE(flat.find("Counts are valid 10-minute records (events: counted events); weeks count from the start."),
+  EXPECT_NE(flat.find("Counts are valid 10-minute records (events: counted events); "
+                      "weeks count from the start."),
             std::string::npos);
 
-  EXPECT_NE(flat.find("The campaign waits mostly on " + mid + " (last to fill in 58 % of runs)"),
+  EXPECT_NE(flat.find("The campaign waits mostly on " + mid +
+                      " (last to fill in 58 % of runs)"),
             std::string::npos)
       << text;
   EXPECT_NE(flat.find("Turbine available: 95.2 %"), std::string::npos) << text;
@@ -320,8 +322,9 @@ TEST(ForecastReportTextTest, NoBottleneckAndMeanWithStandardError) {
   s.p_incomplete_at_horizon = 0;
   s.runs = 2000;
   const std::string flat = Squeeze(FormatForecastText(TestPlan(), s, TestContext()));
-  EXPECT_NE(flat.find("No run completed within the horizon, so no single cell can be named"),
-            std::string::npos);
+  EXPECT_NE(
+      flat.find("No run completed within the horizon, so no single cell can be named"),
+      std::string::npos);
   // 9.3 weeks = 65.1 days -> 66 days after 2025-04-01.
   EXPECT_NE(flat.find("mean 9.3 +/- 0.1 (1 s.e.) 2025-06-06"), std::string::npos) << flat;
   EXPECT_EQ(flat.find("Only 2000 runs"), std::string::npos);

@@ -13,7 +13,7 @@ namespace {
 TEST(BinLookupTest, AgreesWithBinarySearchEverywhere) {
   const std::vector<std::vector<Bin>> layouts = {
       {{3, 4}, {4, 5}, {5, 6}, {6, 7}, {7, 25}},
-      {{0, 3}, {25, 30}},                               // gap between
+      {{0, 3}, {25, 30}},                                   // gap between
       {{0.25, 0.5}, {0.5, 3.75}, {4.1, 4.15}, {4.15, 40}},  // uneven widths
       {{2.5, 3.5}}};
   for (const auto& bins : layouts) {

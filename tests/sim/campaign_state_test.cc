@@ -87,8 +87,9 @@ TEST(CampaignStateTest, TraceReproducesTheRunsCounts) {
   ASSERT_EQ(static_cast<int64_t>(records.size()), traced.simulated_steps);
   uint32_t counted = 0;
   for (const TracedRecord& r : records) {
-    const bool in_cell = r.valid && r.turbine_up && r.state == OperatingState::kProduction &&
-                         r.speed_ms >= 6.0 && r.speed_ms < 9.0;
+    const bool in_cell = r.valid && r.turbine_up &&
+                         r.state == OperatingState::kProduction && r.speed_ms >= 6.0 &&
+                         r.speed_ms < 9.0;
     EXPECT_EQ(in_cell, r.cell == 0) << "step " << r.step;
     counted += r.cell == 0;
   }

@@ -57,7 +57,8 @@ TEST(OperationsTest, SeasonAndHourFactorsKeepTheAnnualMean) {
     weighted += plan.site.monthly_factors[m] * days_in_month[m];
   }
   for (double& f : plan.site.monthly_factors) f *= 365.0 / weighted;
-  for (int h = 0; h < 24; ++h) plan.site.hourly_factors[h] = 1.0 + 0.2 * std::sin(2 * M_PI * h / 24);
+  for (int h = 0; h < 24; ++h)
+    plan.site.hourly_factors[h] = 1.0 + 0.2 * std::sin(2 * M_PI * h / 24);
   plan.start = Date{2027, 1, 1};  // not a leap year: exactly the 365 normalised days
   plan.deadline = AddDays(plan.start, 365);
   const std::vector<RunResult> runs = Simulate(plan, 200, 31);
@@ -100,15 +101,17 @@ TEST(OperationsTest, InterannualFactorScalesWholeYearsLognormally) {
 // means (Boost.Math weibull_distribution, lognormal_distribution).
 TEST(OperationsTest, DurationLawsHaveTheirTextbookMeans) {
   const ZigguratNormal normal;
-  for (const DurationLaw& law :
-       {DurationLaw{DurationLaw::Kind::kWeibull, 0.7}, DurationLaw{DurationLaw::Kind::kWeibull, 2.5},
-        DurationLaw{DurationLaw::Kind::kLognormal, 0.9}}) {
+  for (const DurationLaw& law : {DurationLaw{DurationLaw::Kind::kWeibull, 0.7},
+                                 DurationLaw{DurationLaw::Kind::kWeibull, 2.5},
+                                 DurationLaw{DurationLaw::Kind::kLognormal, 0.9}}) {
     const DurationSampler sampler(law, 240.0);
     if (law.kind == DurationLaw::Kind::kWeibull) {
-      const boost::math::weibull_distribution<double> ref(law.shape, sampler.weibull_scale_steps);
+      const boost::math::weibull_distribution<double> ref(law.shape,
+                                                          sampler.weibull_scale_steps);
       EXPECT_NEAR(boost::math::mean(ref), 240.0, 1e-9);
     } else {
-      const boost::math::lognormal_distribution<double> ref(sampler.log_mu, sampler.log_sigma);
+      const boost::math::lognormal_distribution<double> ref(sampler.log_mu,
+                                                            sampler.log_sigma);
       EXPECT_NEAR(boost::math::mean(ref), 240.0, 1e-9);
     }
     Engine e = MakeRunEngine(5, static_cast<uint64_t>(law.shape * 10));
@@ -229,7 +232,8 @@ TEST(OperationsTest, ReducedModeRecordsGoToReducedCells) {
 }
 
 // Adds an event cell for `event` over [lo, hi) needing `required` events.
-void AddEventCell(Plan* plan, const std::string& event, double lo, double hi, int required) {
+void AddEventCell(Plan* plan, const std::string& event, double lo, double hi,
+                  int required) {
   CaptureMatrix& m = plan->matrix;
   auto it = std::find(m.event_types.begin(), m.event_types.end(), event);
   if (it == m.event_types.end()) it = m.event_types.insert(m.event_types.end(), event);
@@ -284,7 +288,8 @@ TEST(OperationsTest, ManualTestsFollowTheCrewSchedule) {
   AddEventCell(&plan, "emergency_stop", 0.0, 45.0, 3);
   const std::vector<RunResult> runs = Simulate(plan, 50, 5);
   int on_schedule = 0;
-  for (const RunResult& r : runs) on_schedule += r.completion_step == (2 * 144 + 144 + 48 + 1);
+  for (const RunResult& r : runs)
+    on_schedule += r.completion_step == (2 * 144 + 144 + 48 + 1);
   // P(V < 0.5 m/s) is 7e-5 per record for Weibull(12, 3): practically always.
   EXPECT_GE(on_schedule, 49);
 }

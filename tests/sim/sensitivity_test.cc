@@ -44,8 +44,8 @@ ForecastSummary Forecast(const Plan& plan, std::vector<RunResult>* runs_out = nu
   mc.seed = 99;
   const std::vector<RunResult> runs = RunMonteCarlo(sim, mc, nullptr);
   if (runs_out != nullptr) *runs_out = runs;
-  return SummarizeForecast(plan.matrix, sim.deadline_steps(), sim.horizon_steps(), runs, 99,
-                           sim.relaxed_share());
+  return SummarizeForecast(plan.matrix, sim.deadline_steps(), sim.horizon_steps(), runs,
+                           99, sim.relaxed_share());
 }
 
 TEST(SensitivityTest, OptionalSavingEqualsRerunWithTheCellOptional) {
@@ -56,10 +56,13 @@ TEST(SensitivityTest, OptionalSavingEqualsRerunWithTheCellOptional) {
     changed.matrix.cells[c].optional = true;
     const ForecastSummary rerun = Forecast(changed);
     ASSERT_TRUE(base.p50.value && rerun.p50.value && base.p80.value && rerun.p80.value);
-    ASSERT_TRUE(base.cells[c].saved_p50_if_optional && base.cells[c].saved_p80_if_optional);
-    EXPECT_DOUBLE_EQ(*base.cells[c].saved_p50_if_optional, *base.p50.value - *rerun.p50.value)
+    ASSERT_TRUE(base.cells[c].saved_p50_if_optional &&
+                base.cells[c].saved_p80_if_optional);
+    EXPECT_DOUBLE_EQ(*base.cells[c].saved_p50_if_optional,
+                     *base.p50.value - *rerun.p50.value)
         << "cell " << c;
-    EXPECT_DOUBLE_EQ(*base.cells[c].saved_p80_if_optional, *base.p80.value - *rerun.p80.value)
+    EXPECT_DOUBLE_EQ(*base.cells[c].saved_p80_if_optional,
+                     *base.p80.value - *rerun.p80.value)
         << "cell " << c;
   }
 }
@@ -74,7 +77,8 @@ TEST(SensitivityTest, RelaxedSavingEqualsRerunWithTheLowerMinimum) {
         static_cast<int>(std::ceil(0.8 * plan.matrix.cells[c].required));
     const ForecastSummary rerun = Forecast(changed);
     ASSERT_TRUE(base.cells[c].saved_p80_if_relaxed);
-    EXPECT_DOUBLE_EQ(*base.cells[c].saved_p80_if_relaxed, *base.p80.value - *rerun.p80.value)
+    EXPECT_DOUBLE_EQ(*base.cells[c].saved_p80_if_relaxed,
+                     *base.p80.value - *rerun.p80.value)
         << "cell " << c;
     EXPECT_GE(*base.cells[c].saved_p80_if_relaxed, 0.0);
   }

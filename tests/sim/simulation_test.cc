@@ -19,7 +19,8 @@ namespace {
 using testing_plans::Outages;
 using testing_plans::SingleCellPlan;
 
-std::vector<RunResult> Simulate(const Plan& plan, int runs, uint64_t seed, int threads = 2) {
+std::vector<RunResult> Simulate(const Plan& plan, int runs, uint64_t seed,
+                                int threads = 2) {
   const Simulator sim(plan);
   MonteCarloOptions mc;
   mc.runs = runs;
@@ -60,7 +61,8 @@ TEST(SimulationTest, IndependentRecordsGiveNegativeBinomialCompletion) {
     const double f = boost::math::cdf(nb, std::floor(t) - n);
     const double empirical =
         static_cast<double>(std::upper_bound(steps.begin(), steps.end(), std::floor(t)) -
-                            steps.begin()) / runs;
+                            steps.begin()) /
+        runs;
     EXPECT_NEAR(empirical, f, 4 * std::sqrt(f * (1 - f) / runs)) << "t=" << t;
   }
   for (double q : {0.1, 0.5, 0.8, 0.9}) {
@@ -86,7 +88,7 @@ TEST(SimulationTest, MeanCountAtDeadlineIsRecordsTimesProbabilities) {
                        Sector{0.40, Weibull{8.0, 2.0}}};  // 120-degree sectors
   plan.site.sector_persistence = 0.95;
   plan.site.wind_persistence_h = 24.0;
-  plan.valid_sectors = {AngleRange{300, 0}};  // half of sector 0 (300..60)
+  plan.valid_sectors = {AngleRange{300, 0}};          // half of sector 0 (300..60)
   plan.valid_sectors.push_back(AngleRange{60, 180});  // all of sector 1
   plan.turbine_outages = Outages(200.0, 40.0);
   plan.daq_outages = Outages(500.0, 20.0);
@@ -94,14 +96,17 @@ TEST(SimulationTest, MeanCountAtDeadlineIsRecordsTimesProbabilities) {
   const int runs = 600;
   const std::vector<RunResult> results = Simulate(plan, runs, 4242);
 
-  const double cell_p = 0.25 * 0.5 * WeibullBinProbability(plan.site.sectors[0].weibull, 6, 9) +
-                        0.35 * 1.0 * WeibullBinProbability(plan.site.sectors[1].weibull, 6, 9);
+  const double cell_p =
+      0.25 * 0.5 * WeibullBinProbability(plan.site.sectors[0].weibull, 6, 9) +
+      0.35 * 1.0 * WeibullBinProbability(plan.site.sectors[1].weibull, 6, 9);
   const int64_t records = 70 * 144;
   // P(both up at t) = product (independent processes): sum term by term.
   double expected = 0;
   for (int64_t t = 0; t < records; ++t) {
-    const double at = 200.0 / 240.0 + (40.0 / 240.0) * std::exp(-t * (1 / 1200.0 + 1 / 240.0));
-    const double ad = 500.0 / 520.0 + (20.0 / 520.0) * std::exp(-t * (1 / 3000.0 + 1 / 120.0));
+    const double at =
+        200.0 / 240.0 + (40.0 / 240.0) * std::exp(-t * (1 / 1200.0 + 1 / 240.0));
+    const double ad =
+        500.0 / 520.0 + (20.0 / 520.0) * std::exp(-t * (1 / 3000.0 + 1 / 120.0));
     expected += at * ad;
   }
   expected *= 0.95 * cell_p;
@@ -131,7 +136,8 @@ TEST(SimulationTest, SameSeedSameResultsForAnyThreadCount) {
   // And a different seed gives a different campaign.
   const std::vector<RunResult> other = Simulate(plan, 64, 6, 2);
   int differ = 0;
-  for (size_t i = 0; i < one.size(); ++i) differ += one[i].completion_step != other[i].completion_step;
+  for (size_t i = 0; i < one.size(); ++i)
+    differ += one[i].completion_step != other[i].completion_step;
   EXPECT_GT(differ, 32);
 }
 

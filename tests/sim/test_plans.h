@@ -19,8 +19,8 @@ inline OutageModel Outages(double mtbf_h, double mttr_h) {
 // directions valid, no quality rejects; one production cell [lo_ms, hi_ms)
 // without TI bins needing `required` records. Deadline after `deadline_days`,
 // horizon `horizon_weeks`.
-inline Plan SingleCellPlan(double a_ms, double k, double lo_ms, double hi_ms, int required,
-                           int deadline_days = 1, int horizon_weeks = 4) {
+inline Plan SingleCellPlan(double a_ms, double k, double lo_ms, double hi_ms,
+                           int required, int deadline_days = 1, int horizon_weeks = 4) {
   Plan p;
   p.name = "single cell";
   p.site.sectors = {Sector{1.0, Weibull{a_ms, k}}};

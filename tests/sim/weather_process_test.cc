@@ -2,10 +2,10 @@
 
 #include <gtest/gtest.h>
 
+#include <algorithm>
 #include <boost/math/distributions/normal.hpp>
 #include <boost/math/distributions/weibull.hpp>
 #include <boost/random/normal_distribution.hpp>
-#include <algorithm>
 #include <cmath>
 #include <vector>
 
@@ -43,7 +43,8 @@ TEST(WeatherProcessTest, LatentAr1LagAutocorrelationIsPhiToTheK) {
   for (int k : {1, 6, 24, 72}) {
     const double phi2 = ar.phi * ar.phi, phi2k = std::pow(ar.phi, 2 * k);
     const double var = ((1 + phi2) * (1 - phi2k) / (1 - phi2) - 2 * k * phi2k) / n;
-    EXPECT_NEAR(Autocorrelation(z, k), std::pow(ar.phi, k), 4 * std::sqrt(var)) << "lag " << k;
+    EXPECT_NEAR(Autocorrelation(z, k), std::pow(ar.phi, k), 4 * std::sqrt(var))
+        << "lag " << k;
   }
 }
 
@@ -119,10 +120,10 @@ TEST(WeatherProcessTest, SpeedTransformMatchesBoostWeibullOfNormal) {
     const boost::math::weibull_distribution<double> weibull(k, 1.0);
     for (double z = -6.0; z <= 6.0; z += 0.0371) {
       const double p = boost::math::cdf(normal, z);
-      const double ref = (p < 0.5) ? boost::math::quantile(weibull, p)
-                                   : boost::math::quantile(boost::math::complement(
-                                         weibull, boost::math::cdf(boost::math::complement(
-                                                      normal, z))));
+      const double ref =
+          (p < 0.5) ? boost::math::quantile(weibull, p)
+                    : boost::math::quantile(boost::math::complement(
+                          weibull, boost::math::cdf(boost::math::complement(normal, z))));
       EXPECT_NEAR(table(z), ref, 1e-4 * std::max(ref, 0.01)) << "k=" << k << " z=" << z;
     }
   }

@@ -31,7 +31,8 @@ TEST(ZigguratNormalTest, DrawsFollowTheStandardNormal) {
   EXPECT_LT(d, 1.95 / std::sqrt(n));
   for (double t : {2.0, 3.5}) {
     const double p = 2 * boost::math::cdf(boost::math::complement(ref, t));
-    const long beyond = std::count_if(x.begin(), x.end(), [t](double v) { return std::abs(v) > t; });
+    const long beyond =
+        std::count_if(x.begin(), x.end(), [t](double v) { return std::abs(v) > t; });
     EXPECT_NEAR(static_cast<double>(beyond) / n, p, 4 * std::sqrt(p * (1 - p) / n)) << t;
   }
 }

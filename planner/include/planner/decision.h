@@ -34,10 +34,10 @@ struct ScenarioResult {
 // streams: b minus a, over the runs where both completed.
 struct PairedDifference {
   std::string a, b;
-  long pairs = 0;            // runs where both completed
-  double mean_weeks = 0;     // mean of (b - a)
-  double se_weeks = 0;       // its standard error
-  double p_a_sooner = 0;     // share of all runs where a completed strictly sooner
+  long pairs = 0;         // runs where both completed
+  double mean_weeks = 0;  // mean of (b - a)
+  double se_weeks = 0;    // its standard error
+  double p_a_sooner = 0;  // share of all runs where a completed strictly sooner
 };
 
 enum class RankBy { kP50, kP80, kP90, kExpectedCost };
@@ -45,14 +45,15 @@ const char* RankByName(RankBy r);
 
 struct Comparison {
   RankBy rank_by = RankBy::kP80;
-  std::vector<ScenarioResult> ranked;   // best first
+  std::vector<ScenarioResult> ranked;  // best first
   std::optional<PairedDifference> best_two;
 };
 
 // Ranks scenarios (ties keep input order). per_run[i] are the runs of
 // scenarios[i], all with the same seed and run count.
 Comparison RankScenarios(std::vector<ScenarioResult> scenarios,
-                         const std::vector<std::vector<RunResult>>& per_run, RankBy rank_by);
+                         const std::vector<std::vector<RunResult>>& per_run,
+                         RankBy rank_by);
 
 PairedDifference PairedCompletionDifference(const std::string& a_name,
                                             const std::vector<RunResult>& a,

@@ -39,7 +39,9 @@ struct SiteLayout {
   std::vector<NeighbourTurbine> neighbours;
   std::vector<Obstacle> obstacles;
   std::vector<AngleRange> exclusions;  // manual, e.g. a terrain feature
-  bool empty() const { return neighbours.empty() && obstacles.empty() && exclusions.empty(); }
+  bool empty() const {
+    return neighbours.empty() && obstacles.empty() && exclusions.empty();
+  }
 };
 
 struct DisturbedSector {

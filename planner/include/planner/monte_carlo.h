@@ -13,17 +13,18 @@
 namespace planner {
 
 struct MonteCarloOptions {
-  int runs = 2000;     // number of simulated campaigns, >= 1
-  uint64_t seed = 1;   // master seed
-  int threads = 0;     // worker threads; 0 = all hardware threads
-  int first_run = 0;   // index of the first run (to extend a set of runs)
+  int runs = 2000;    // number of simulated campaigns, >= 1
+  uint64_t seed = 1;  // master seed
+  int threads = 0;    // worker threads; 0 = all hardware threads
+  int first_run = 0;  // index of the first run (to extend a set of runs)
   // Continue a running campaign from this state (progress); null = from the
   // plan's start. Not owned; must outlive the call.
   const CampaignState* state = nullptr;
 };
 
 // Runs options.runs campaigns; result[i] is run first_run + i.
-std::vector<RunResult> RunMonteCarlo(const Simulator& sim, const MonteCarloOptions& options,
+std::vector<RunResult> RunMonteCarlo(const Simulator& sim,
+                                     const MonteCarloOptions& options,
                                      ProgressSink* progress);
 
 // Runs until the 95 % confidence interval of the completion-time quantile p

@@ -41,8 +41,9 @@ struct DurationLaw {
 // Alternating renewal process of up and repair times. Long-run availability
 // = MTBF / (MTBF + MTTR) (reliability-engineering textbook result).
 struct OutageModel {
-  double mtbf_h = 0.0;  // mean time between failures (mean up time), hours; 0 = never fails
-  double mttr_h = 0.0;  // mean time to repair, hours
+  double mtbf_h =
+      0.0;  // mean time between failures (mean up time), hours; 0 = never fails
+  double mttr_h = 0.0;     // mean time to repair, hours
   DurationLaw up_law;      // law of up times, mean mtbf_h
   DurationLaw repair_law;  // law of repair times, mean mttr_h
   // Factor on the duration of a repair that starts in each month (Jan..Dec),
@@ -54,7 +55,7 @@ struct OutageModel {
 struct PlannedOutage {
   std::string name;
   Date from;
-  Date to;  // exclusive
+  Date to;              // exclusive
   bool turbine = true;  // the turbine is out of service
   bool daq = false;     // the data acquisition is down
 };
@@ -71,7 +72,7 @@ struct CurtailmentRule {
   std::string name;
   std::vector<int> months;  // 1..12; empty = every month
   HourWindow hours;
-  double wind_lo_ms = 0.0;    // applies for wind_lo_ms <= V < wind_hi_ms
+  double wind_lo_ms = 0.0;  // applies for wind_lo_ms <= V < wind_hi_ms
   double wind_hi_ms = 1e9;
   std::vector<AngleRange> directions;  // empty = every direction
   enum class Action { kStop, kReduce };
@@ -91,8 +92,8 @@ struct CrewSchedule {
 // cells (by wind range) count the tests whose record also passes the quality
 // check.
 struct ManualTest {
-  std::string name;             // event type name, e.g. "emergency_stop"
-  double wind_lo_ms = 0.0;      // window [lo, hi) for doing the test
+  std::string name;         // event type name, e.g. "emergency_stop"
+  double wind_lo_ms = 0.0;  // window [lo, hi) for doing the test
   double wind_hi_ms = 1e9;
   double min_interval_h = 4.0;  // between two tests of this kind
 };
@@ -110,8 +111,8 @@ struct Plan {
   SiteModel site;
   std::string site_file;  // path of the site model
 
-  Date start;     // campaign starts at 00:00 of this date
-  Date deadline;  // planned end (exclusive: records up to 00:00 of this date)
+  Date start;               // campaign starts at 00:00 of this date
+  Date deadline;            // planned end (exclusive: records up to 00:00 of this date)
   int horizon_weeks = 156;  // simulate at most this long from start
 
   TurbineSpec turbine;

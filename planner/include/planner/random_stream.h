@@ -59,7 +59,8 @@ using Engine = Xoshiro256pp;
 
 // The engine of run `run_index` under master seed `seed`.
 inline Engine MakeRunEngine(uint64_t seed, uint64_t run_index) {
-  return Engine(SplitMix64(SplitMix64(seed) ^ SplitMix64(run_index + 0x5851F42D4C957F2DULL)));
+  return Engine(
+      SplitMix64(SplitMix64(seed) ^ SplitMix64(run_index + 0x5851F42D4C957F2DULL)));
 }
 
 // Uniform in [0, 1) from the top 53 bits of one draw.

@@ -14,10 +14,10 @@
 namespace planner {
 
 struct HtmlReportInput {
-  const Plan* plan = nullptr;                // required
-  const ForecastSummary* forecast = nullptr; // required
-  std::vector<StartSweepRow> start_sweep;    // optional section
-  const Comparison* comparison = nullptr;    // optional section
+  const Plan* plan = nullptr;                 // required
+  const ForecastSummary* forecast = nullptr;  // required
+  std::vector<StartSweepRow> start_sweep;     // optional section
+  const Comparison* comparison = nullptr;     // optional section
   ReportContext context;
   std::string command_line;  // how the report was made (inputs and seed)
 };

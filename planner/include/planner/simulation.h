@@ -55,16 +55,16 @@ struct RunResult {
 // One simulated 10-minute record, for tests that rebuild a campaign log from
 // a simulated campaign (Simulator::Trace). Not used by forecasts.
 struct TracedRecord {
-  int64_t step = 0;           // 0-based record index from the plan's start
-  double speed_ms = 0;        // mean wind speed
-  double direction_deg = 0;   // wind direction
-  double ti = 0;              // TI (fraction) where the simulation drew it, else NaN
+  int64_t step = 0;          // 0-based record index from the plan's start
+  double speed_ms = 0;       // mean wind speed
+  double direction_deg = 0;  // wind direction
+  double ti = 0;             // TI (fraction) where the simulation drew it, else NaN
   OperatingState state = OperatingState::kParked;
   bool turbine_up = true, daq_up = true, sector_ok = true;
-  bool quality_ok = true;     // passed the data-quality check
-  bool valid = true;          // acquisition up, valid sector, quality passed
-  bool manual_test = false;   // a manual test was done in this record
-  int cell = -1;              // record cell it counted for, -1 if none
+  bool quality_ok = true;    // passed the data-quality check
+  bool valid = true;         // acquisition up, valid sector, quality passed
+  bool manual_test = false;  // a manual test was done in this record
+  int cell = -1;             // record cell it counted for, -1 if none
 };
 
 struct CompiledModel;  // lookup tables built once per plan (sim/compiled_model.h)
@@ -76,11 +76,11 @@ struct CompiledModel;  // lookup tables built once per plan (sim/compiled_model.
 // from the latest logged wind speed and direction (its latent normal is the
 // normal score of that speed under the sector's Weibull).
 struct CampaignState {
-  int64_t elapsed_days = 0;         // >= 0; below the horizon
-  std::vector<uint32_t> counts;     // per cell, so far (empty = all zero)
+  int64_t elapsed_days = 0;      // >= 0; below the horizon
+  std::vector<uint32_t> counts;  // per cell, so far (empty = all zero)
   bool has_last_wind = false;
-  double last_speed_ms = 0;         // latest logged 10-minute mean speed
-  double last_direction_deg = 0;    // and its direction
+  double last_speed_ms = 0;       // latest logged 10-minute mean speed
+  double last_direction_deg = 0;  // and its direction
 };
 
 struct SimulationOptions {

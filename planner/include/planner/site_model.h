@@ -22,8 +22,8 @@ struct Sector {
 };
 
 struct SiteModel {
-  std::string name;         // shown in reports
-  std::string description;  // free text (e.g. "invented, illustrative")
+  std::string name;             // shown in reports
+  std::string description;      // free text (e.g. "invented, illustrative")
   std::vector<Sector> sectors;  // >= 1; frequencies sum to 1
 
   // Probability per 10-minute step that the wind stays in its sector

@@ -21,14 +21,14 @@ namespace planner {
 struct TiTableRow {
   double wind_lo_ms = 0.0;  // bin [lo, hi), m/s
   double wind_hi_ms = 0.0;
-  double ti_mean = 0.0;     // mean TI in the bin, fraction (0.12 = 12 %)
-  double ti_std = 0.0;      // standard deviation of TI in the bin, fraction
+  double ti_mean = 0.0;  // mean TI in the bin, fraction (0.12 = 12 %)
+  double ti_std = 0.0;   // standard deviation of TI in the bin, fraction
 };
 
 struct TurbulenceModel {
   enum class Kind { kIecNtm, kTable };
   Kind kind = Kind::kIecNtm;
-  double i_ref = 0.16;           // NTM reference intensity (class A default).
+  double i_ref = 0.16;            // NTM reference intensity (class A default).
   std::vector<TiTableRow> table;  // kTable: sorted, non-overlapping bins.
   // Time scale of TI's own persistence in hours (0 = independent records).
   double persistence_h = 0.0;

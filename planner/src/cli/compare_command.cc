@@ -1,7 +1,6 @@
 // fillcast compare PLAN PLAN...: several sites or scenarios on the same random
 // numbers, side by side, ranked, with the paired difference of the best two.
 #include <CLI/CLI.hpp>
-
 #include <iostream>
 #include <memory>
 #include <set>
@@ -33,7 +32,8 @@ RankBy ParseRankBy(const std::string& text) {
   if (text == "p80") return RankBy::kP80;
   if (text == "p90") return RankBy::kP90;
   if (text == "cost") return RankBy::kExpectedCost;
-  throw InputError("--rank-by: '" + text + "' is invalid; expected p50, p80, p90 or cost");
+  throw InputError("--rank-by: '" + text +
+                   "' is invalid; expected p50, p80, p90 or cost");
 }
 
 int RunCompare(const CompareArgs& args) {
@@ -55,9 +55,9 @@ int RunCompare(const CompareArgs& args) {
   std::vector<std::string> inputs;
   for (size_t i = 0; i < plans.size(); ++i) {
     const Simulator sim(plans[i]);
-    TerminalProgress progress("runs of scenario " + std::to_string(i + 1) + "/" +
-                                  std::to_string(plans.size()),
-                              args.run.quiet);
+    TerminalProgress progress(
+        "runs of scenario " + std::to_string(i + 1) + "/" + std::to_string(plans.size()),
+        args.run.quiet);
     per_run.push_back(RunMonteCarlo(sim, mc, &progress));
     ScenarioResult r;
     r.name = clash ? plans[i].name + " (" + args.plan_paths[i] + ")" : plans[i].name;
@@ -66,8 +66,9 @@ int RunCompare(const CompareArgs& args) {
     for (const Cell& c : plans[i].matrix.cells) {
       r.cell_labels.push_back(CellLabel(plans[i].matrix, c));
     }
-    r.summary = SummarizeForecast(plans[i].matrix, sim.deadline_steps(), sim.horizon_steps(),
-                                  per_run.back(), mc.seed, sim.relaxed_share());
+    r.summary =
+        SummarizeForecast(plans[i].matrix, sim.deadline_steps(), sim.horizon_steps(),
+                          per_run.back(), mc.seed, sim.relaxed_share());
     scenarios.push_back(std::move(r));
     inputs.push_back(plans[i].source_file);
     inputs.push_back(plans[i].site_file);
@@ -90,8 +91,8 @@ int RunCompare(const CompareArgs& args) {
     in.forecast = &best.summary;
     in.comparison = &comparison;
     in.context = ctx;
-    in.command_line = "fillcast compare ... --runs " + std::to_string(mc.runs) + " --seed " +
-                      std::to_string(mc.seed);
+    in.command_line = "fillcast compare ... --runs " + std::to_string(mc.runs) +
+                      " --seed " + std::to_string(mc.seed);
     WriteOutputFile(args.report_path, FormatHtmlReport(in), args.run.force, inputs,
                     "--report");
   }
@@ -106,7 +107,8 @@ int RunCompare(const CompareArgs& args) {
 CommandAction AddCompareCommand(CLI::App& app) {
   auto args = std::make_shared<CompareArgs>();
   CLI::App* cmd = app.add_subcommand(
-      "compare", "Compare sites or scenarios on the same random numbers: duration, risk, cost");
+      "compare",
+      "Compare sites or scenarios on the same random numbers: duration, risk, cost");
   cmd->add_option("plans", args->plan_paths, "Two or more plans (YAML)")->required();
   AddRunOptions(cmd, &args->run);
   cmd->add_option("--rank-by", args->rank_by,

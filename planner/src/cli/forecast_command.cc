@@ -1,7 +1,6 @@
 // fillcast forecast PLAN.yaml: simulate many campaigns and report weeks to
 // completion, its risk, and the cells that stay thin.
 #include <CLI/CLI.hpp>
-
 #include <iostream>
 #include <memory>
 
@@ -28,7 +27,7 @@ struct ForecastArgs {
   std::string csv_cells_path;  // --csv-cells
   std::string csv_curve_path;  // --csv-curve
   int thin_rows = 10;
-  double precision_weeks = 0;           // --precision; 0 = off
+  double precision_weeks = 0;  // --precision; 0 = off
   std::string precision_quantile = "p80";
   int max_runs = 100000;
   double relaxed_share = 0.8;  // --relax: lowered minimum for the what-if
@@ -109,8 +108,8 @@ int RunForecast(const ForecastArgs& args) {
                        " is invalid; expected a whole number from --runs (" +
                        std::to_string(mc.runs) + ") to 10000000");
     }
-    PrecisionResult p = RunToPrecision(sim, mc, q, args.precision_weeks, args.max_runs,
-                                       &progress);
+    PrecisionResult p =
+        RunToPrecision(sim, mc, q, args.precision_weeks, args.max_runs, &progress);
     runs = std::move(p.runs);
     ctx.precision_used = true;
     ctx.precision_quantile = q;
@@ -124,15 +123,15 @@ int RunForecast(const ForecastArgs& args) {
     runs = RunMonteCarlo(sim, mc, &progress);
   }
   const ForecastSummary summary =
-      SummarizeForecast(plan.matrix, sim.deadline_steps(), sim.horizon_steps(), runs, mc.seed,
-                        sim.relaxed_share());
+      SummarizeForecast(plan.matrix, sim.deadline_steps(), sim.horizon_steps(), runs,
+                        mc.seed, sim.relaxed_share());
 
   ctx.tool_version = FILLCAST_VERSION;
   ctx.threads = EffectiveThreads(mc.threads);
   ctx.thin_cell_rows = args.thin_rows;
   if (!args.json_path.empty()) {
-    WriteOutputFile(args.json_path, FormatForecastJson(plan, summary, ctx), args.run.force,
-                    {plan.source_file, plan.site_file}, "--json");
+    WriteOutputFile(args.json_path, FormatForecastJson(plan, summary, ctx),
+                    args.run.force, {plan.source_file, plan.site_file}, "--json");
   }
   WriteReportFiles(args, plan, summary, ctx);
   const bool wrote_file = !args.json_path.empty() || !args.report_path.empty() ||
@@ -154,9 +153,10 @@ CommandAction AddForecastCommand(CLI::App& app) {
   AddRunOptions(cmd, &args->run);
   cmd->add_option("--json", args->json_path, "Also write the full result as JSON to PATH")
       ->type_name("PATH");
-  cmd->add_option("--report", args->report_path,
-                  "Also write a self-contained HTML report to PATH (opens offline, prints "
-                  "to PDF)")
+  cmd->add_option(
+         "--report", args->report_path,
+         "Also write a self-contained HTML report to PATH (opens offline, prints "
+         "to PDF)")
       ->type_name("PATH");
   cmd->add_option("--csv-cells", args->csv_cells_path,
                   "Also write the cell table as CSV to PATH")

@@ -2,7 +2,6 @@
 // 61400-13 capture matrix. main() only builds the command line, dispatches and
 // maps errors to exit codes; each subcommand lives in its own file.
 #include <CLI/CLI.hpp>
-
 #include <exception>
 #include <iostream>
 #include <string>
@@ -34,7 +33,8 @@ int main(int argc, char** argv) {
     known = known || (argc > 1 && sub->get_name() == argv[1]);
   }
   if (argc > 1 && argv[1][0] != '-' && !known) {
-    std::cerr << "fillcast: error: '" << argv[1] << "' is not a fillcast command; expected "
+    std::cerr << "fillcast: error: '" << argv[1]
+              << "' is not a fillcast command; expected "
               << "one of: " << names << " (see fillcast --help)\n";
     return kExitInputError;
   }

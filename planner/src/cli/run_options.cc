@@ -1,7 +1,6 @@
 #include "cli/run_options.h"
 
 #include <CLI/CLI.hpp>
-
 #include <sstream>
 #include <string>
 

@@ -1,7 +1,6 @@
 // fillcast start-sweep PLAN: the same campaign started on the first of each
 // month in turn, so that a windy-season start can be argued with numbers.
 #include <CLI/CLI.hpp>
-
 #include <iostream>
 #include <memory>
 
@@ -51,23 +50,24 @@ int RunSweep(const SweepArgs& args) {
     const ForecastSummary s =
         SummarizeForecast(shifted.matrix, sim.deadline_steps(), sim.horizon_steps(), runs,
                           mc.seed, sim.relaxed_share());
-    rows.push_back({shifted.start, shifted.deadline, s.p50, s.p80, s.p90,
-                    s.p_complete_by_deadline});
+    rows.push_back(
+        {shifted.start, shifted.deadline, s.p50, s.p80, s.p90, s.p_complete_by_deadline});
   }
   ReportContext ctx;
   ctx.tool_version = FILLCAST_VERSION;
   ctx.threads = EffectiveThreads(mc.threads);
   const std::vector<std::string> inputs = {plan.source_file, plan.site_file};
   if (!args.json_path.empty()) {
-    WriteOutputFile(args.json_path, FormatStartSweepJson(plan, rows, ctx, mc.runs, mc.seed),
+    WriteOutputFile(args.json_path,
+                    FormatStartSweepJson(plan, rows, ctx, mc.runs, mc.seed),
                     args.run.force, inputs, "--json");
   }
   if (!args.report_path.empty()) {
     const Simulator sim(plan);
     const std::vector<RunResult> runs = RunMonteCarlo(sim, mc, nullptr);
-    const ForecastSummary own = SummarizeForecast(plan.matrix, sim.deadline_steps(),
-                                                  sim.horizon_steps(), runs, mc.seed,
-                                                  sim.relaxed_share());
+    const ForecastSummary own =
+        SummarizeForecast(plan.matrix, sim.deadline_steps(), sim.horizon_steps(), runs,
+                          mc.seed, sim.relaxed_share());
     HtmlReportInput in;
     in.plan = &plan;
     in.forecast = &own;

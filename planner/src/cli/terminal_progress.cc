@@ -20,8 +20,8 @@ void TerminalProgress::Update(long done, long total) {
   const double elapsed_s = std::chrono::duration<double>(now - start_).count();
   const double share = total > 0 ? static_cast<double>(done) / total : 1.0;
   const double left_s = share > 0 ? elapsed_s * (1.0 - share) / share : 0.0;
-  std::fprintf(stderr, "\r  simulating %8ld / %ld %s  %5.1f %%  %6.1f s left ", done, total,
-               label_.c_str(), 100.0 * share, left_s);
+  std::fprintf(stderr, "\r  simulating %8ld / %ld %s  %5.1f %%  %6.1f s left ", done,
+               total, label_.c_str(), 100.0 * share, left_s);
   std::fflush(stderr);
   drawn_ = true;
 }

@@ -40,13 +40,16 @@ Date CivilFromDays(int64_t z) {
   return d;
 }
 
-Date AddDays(const Date& d, int64_t days) { return CivilFromDays(DaysFromCivil(d) + days); }
+Date AddDays(const Date& d, int64_t days) {
+  return CivilFromDays(DaysFromCivil(d) + days);
+}
 
 std::optional<Date> ParseDate(const std::string& text) {
   int y = 0, m = 0, d = 0;
   char tail = 0;
   if (text.size() != 10 || text[4] != '-' || text[7] != '-') return std::nullopt;
-  if (std::sscanf(text.c_str(), "%4d-%2d-%2d%c", &y, &m, &d, &tail) != 3) return std::nullopt;
+  if (std::sscanf(text.c_str(), "%4d-%2d-%2d%c", &y, &m, &d, &tail) != 3)
+    return std::nullopt;
   if (y < 1900 || y > 2200 || m < 1 || m > 12 || d < 1 || d > DaysInMonth(y, m)) {
     return std::nullopt;
   }

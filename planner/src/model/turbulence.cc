@@ -19,8 +19,9 @@ SigmaMoments SigmaMomentsAt(const TurbulenceModel& model, double speed_ms) {
     return {model.i_ref * (0.75 * speed_ms + 3.8), 1.4 * model.i_ref};
   }
   const std::vector<TiTableRow>& rows = model.table;
-  auto it = std::upper_bound(rows.begin(), rows.end(), speed_ms,
-                             [](double v, const TiTableRow& r) { return v < r.wind_lo_ms; });
+  auto it =
+      std::upper_bound(rows.begin(), rows.end(), speed_ms,
+                       [](double v, const TiTableRow& r) { return v < r.wind_lo_ms; });
   const TiTableRow& row = (it == rows.begin()) ? rows.front() : *(it - 1);
   // Between two rows with a gap, or beyond the last row, use the nearest row.
   const TiTableRow* best = &row;

@@ -25,12 +25,12 @@ std::vector<std::string> ResultNotes(const ForecastSummary& s) {
   std::vector<std::string> notes;
   if (s.runs > 0 && s.runs < 1000) {
     notes.push_back(
-        Printf("Only %ld runs: the 95 %% intervals are wide and the shares are "
-               "coarse; more runs narrow them.",
-               s.runs));
+        StringPrintf("Only %ld runs: the 95 %% intervals are wide and the shares are "
+                     "coarse; more runs narrow them.",
+                     s.runs));
   }
   if (s.p_incomplete_at_horizon > 0) {
-    notes.push_back(Printf(
+    notes.push_back(StringPrintf(
         "%s of runs did not complete within the %s-week horizon. A quantile that "
         "falls among those runs is shown as not reached, and there is no mean.",
         Percent(s.p_incomplete_at_horizon).c_str(), Compact(s.horizon_weeks).c_str()));
@@ -41,9 +41,9 @@ std::vector<std::string> ResultNotes(const ForecastSummary& s) {
   }
   if (s.runs > 0 && never_full > 0) {
     notes.push_back(
-        Printf("%ld required cell%s full by the deadline in no run: the "
-               "deadline cannot be met as planned.",
-               never_full, never_full == 1 ? " was" : "s were"));
+        StringPrintf("%ld required cell%s full by the deadline in no run: the "
+                     "deadline cannot be met as planned.",
+                     never_full, never_full == 1 ? " was" : "s were"));
   }
   return notes;
 }
@@ -52,58 +52,62 @@ std::vector<std::string> ResultNotes(const ForecastSummary& s) {
 
 std::string TextHeader(const Plan& plan, const ForecastSummary& s,
                        const ReportContext& ctx) {
-  std::string out = Printf("fillcast %s - campaign forecast\n", ctx.tool_version.c_str());
+  std::string out =
+      StringPrintf("fillcast %s - campaign forecast\n", ctx.tool_version.c_str());
   out += Wrap("  Plan:      ", plan.name);
   out += Wrap("  Site:      ", plan.site.name);
   if (!plan.turbine.name.empty()) out += Wrap("  Turbine:   ", plan.turbine.name);
-  out += Printf("  Start:     %s\n", FormatDate(plan.start).c_str());
-  out += Printf("  Deadline:  %s (%.1f weeks after the start)\n",
-                FormatDate(plan.deadline).c_str(), s.deadline_weeks);
-  out += Printf("  Horizon:   %s weeks\n", Compact(s.horizon_weeks).c_str());
-  out += Printf("  Runs:      %ld (seed %llu, %d thread%s)\n", s.runs,
-                static_cast<unsigned long long>(s.seed), ctx.threads,
-                ctx.threads == 1 ? "" : "s");
+  out += StringPrintf("  Start:     %s\n", FormatDate(plan.start).c_str());
+  out += StringPrintf("  Deadline:  %s (%.1f weeks after the start)\n",
+                      FormatDate(plan.deadline).c_str(), s.deadline_weeks);
+  out += StringPrintf("  Horizon:   %s weeks\n", Compact(s.horizon_weeks).c_str());
+  out += StringPrintf("  Runs:      %ld (seed %llu, %d thread%s)\n", s.runs,
+                      static_cast<unsigned long long>(s.seed), ctx.threads,
+                      ctx.threads == 1 ? "" : "s");
   if (ctx.precision_used) {
     const std::string width = std::isfinite(ctx.precision_width_weeks)
-                                  ? Printf("%.2f weeks", ctx.precision_width_weeks)
+                                  ? StringPrintf("%.2f weeks", ctx.precision_width_weeks)
                                   : std::string("open (runs incomplete)");
-    out += Wrap("  Precision: ",
-                Printf("runs added until the 95 %% interval of P%.0f was at most %.2f weeks "
-                       "wide: %s after %ld runs%s",
-                       100.0 * ctx.precision_quantile, ctx.precision_target_weeks,
-                       width.c_str(), s.runs,
-                       ctx.precision_met ? "" : " (the cap on runs was reached first)"));
+    out += Wrap(
+        "  Precision: ",
+        StringPrintf(
+            "runs added until the 95 %% interval of P%.0f was at most %.2f weeks "
+            "wide: %s after %ld runs%s",
+            100.0 * ctx.precision_quantile, ctx.precision_target_weeks, width.c_str(),
+            s.runs, ctx.precision_met ? "" : " (the cap on runs was reached first)"));
   }
   return out;
 }
 
 std::string TextCompletion(const Plan& plan, const ForecastSummary& s) {
   std::string out = "\nWeeks to a full capture matrix (all required cells)\n";
-  out += Printf("  %-6s %11s   %-18s %s\n", "", "weeks", "95 % CI, weeks", "done by");
+  out +=
+      StringPrintf("  %-6s %11s   %-18s %s\n", "", "weeks", "95 % CI, weeks", "done by");
   const std::pair<const char*, const QuantileEstimate*> rows[] = {
       {"P10", &s.p10}, {"P50", &s.p50}, {"P80", &s.p80}, {"P90", &s.p90}};
   for (const auto& [name, q] : rows) {
-    out += Printf("  %-6s %s   %-18s %s\n", name, WeeksText(q->value, 11).c_str(),
-                  CiRangeText(*q).c_str(), DoneBy(plan.start, q->value).c_str());
+    out += StringPrintf("  %-6s %s   %-18s %s\n", name, WeeksText(q->value, 11).c_str(),
+                        CiRangeText(*q).c_str(), DoneBy(plan.start, q->value).c_str());
   }
   if (s.mean_weeks) {
-    const std::string se =
-        s.mean_se_weeks ? Printf("+/- %.1f (1 s.e.)", *s.mean_se_weeks) : std::string();
-    out += Printf("  %-6s %11.1f   %-18s %s\n", "mean", *s.mean_weeks, se.c_str(),
-                  DoneBy(plan.start, s.mean_weeks).c_str());
+    const std::string se = s.mean_se_weeks
+                               ? StringPrintf("+/- %.1f (1 s.e.)", *s.mean_se_weeks)
+                               : std::string();
+    out += StringPrintf("  %-6s %11.1f   %-18s %s\n", "mean", *s.mean_weeks, se.c_str(),
+                        DoneBy(plan.start, s.mean_weeks).c_str());
   } else {
-    out += Printf("  %-6s %11s   (not every run completed within the horizon)\n", "mean",
-                  "none");
+    out += StringPrintf("  %-6s %11s   (not every run completed within the horizon)\n",
+                        "mean", "none");
   }
   out += "\n";
   const std::string by_deadline =
       "Complete by the deadline (" + FormatDate(plan.deadline) + "):";
-  out += Printf("  %-46s %8s of runs\n", by_deadline.c_str(),
-                Percent(s.p_complete_by_deadline).c_str());
+  out += StringPrintf("  %-46s %8s of runs\n", by_deadline.c_str(),
+                      Percent(s.p_complete_by_deadline).c_str());
   const std::string in_horizon =
       "Not complete within the horizon (" + Compact(s.horizon_weeks) + " weeks):";
-  out += Printf("  %-46s %8s of runs\n", in_horizon.c_str(),
-                Percent(s.p_incomplete_at_horizon).c_str());
+  out += StringPrintf("  %-46s %8s of runs\n", in_horizon.c_str(),
+                      Percent(s.p_incomplete_at_horizon).c_str());
   return out;
 }
 
@@ -113,34 +117,38 @@ std::string TextThinCells(const Plan& plan, const ForecastSummary& s,
       ThinnestCells(s, ctx.thin_cell_rows, false);
   int required_cells = 0;
   for (const CellForecast& c : s.cells) required_cells += c.cell.optional ? 0 : 1;
-  std::string out = Printf(
+  std::string out = StringPrintf(
       "\nCells least likely to be full by the deadline (%zu of %d "
       "required cells)\n",
       thin.size(), required_cells);
   if (thin.empty()) return out + "  (none)\n";
 
-  out += "  Counts are valid 10-minute records (events: counted events); weeks count from the "
-         "start.\n";
+  out +=
+      "  Counts are valid 10-minute records (events: counted events); weeks count from "
+      "the "
+      "start.\n";
   size_t w = 4;
-  for (const CellForecast* c : thin) w = std::max(w, CellLabel(plan.matrix, c->cell).size());
+  for (const CellForecast* c : thin)
+    w = std::max(w, CellLabel(plan.matrix, c->cell).size());
   w = std::min(w, kMaxLabelWidth);
   const int lw = static_cast<int>(w);
-  out += Printf("  %-*s  %8s  %-31s  %11s\n", lw, "", "",
-                "------- at the deadline -------", "Weeks to");
-  out += Printf("  %-*s  %8s  %8s  %11s  %8s  %11s\n", lw, "Cell", "Required", "Expected",
-                "P10-P90", "P(full)", "full, P50");
+  out += StringPrintf("  %-*s  %8s  %-31s  %11s\n", lw, "", "",
+                      "------- at the deadline -------", "Weeks to");
+  out += StringPrintf("  %-*s  %8s  %8s  %11s  %8s  %11s\n", lw, "Cell", "Required",
+                      "Expected", "P10-P90", "P(full)", "full, P50");
   for (const CellForecast* c : thin) {
-    const std::string range = Printf("%.0f-%.0f", c->count_p10, c->count_p90);
-    out += Printf("  %-*s  %8d  %8.1f  %11s  %8s  %s\n", lw,
-                  FitLabel(CellLabel(plan.matrix, c->cell), w).c_str(), c->cell.required,
-                  c->count_mean, range.c_str(), Percent(c->p_full_by_deadline).c_str(),
-                  WeeksText(c->weeks_to_full_p50, 11).c_str());
+    const std::string range = StringPrintf("%.0f-%.0f", c->count_p10, c->count_p90);
+    out += StringPrintf("  %-*s  %8d  %8.1f  %11s  %8s  %s\n", lw,
+                        FitLabel(CellLabel(plan.matrix, c->cell), w).c_str(),
+                        c->cell.required, c->count_mean, range.c_str(),
+                        Percent(c->p_full_by_deadline).c_str(),
+                        WeeksText(c->weeks_to_full_p50, 11).c_str());
   }
   return out;
 }
 
 std::string SavedText(const std::optional<double>& weeks) {
-  return weeks ? Printf("%.1f", *weeks) : std::string("-");
+  return weeks ? StringPrintf("%.1f", *weeks) : std::string("-");
 }
 
 // The cells whose relaxation would save most at P80: what making each
@@ -153,21 +161,22 @@ std::string TextSavings(const Plan& plan, const ForecastSummary& s) {
     }
   }
   if (cells.empty()) return "";
-  std::stable_sort(cells.begin(), cells.end(), [](const CellForecast* a, const CellForecast* b) {
-    return *a->saved_p80_if_optional > *b->saved_p80_if_optional;
-  });
+  std::stable_sort(cells.begin(), cells.end(),
+                   [](const CellForecast* a, const CellForecast* b) {
+                     return *a->saved_p80_if_optional > *b->saved_p80_if_optional;
+                   });
   if (cells.size() > 5) cells.resize(5);
-  std::string out = Printf(
+  std::string out = StringPrintf(
       "\nWhat relaxing a cell would save (weeks, from the same runs)\n"
       "  %-42s %17s %17s %17s\n",
       "Cell", "optional: P50", "optional: P80",
-      Printf("min x %.0f %%: P80", 100.0 * s.relaxed_share).c_str());
+      StringPrintf("min x %.0f %%: P80", 100.0 * s.relaxed_share).c_str());
   for (const CellForecast* c : cells) {
-    out += Printf("  %-42s %17s %17s %17s\n",
-                  FitLabel(CellLabel(plan.matrix, c->cell), 42).c_str(),
-                  SavedText(c->saved_p50_if_optional).c_str(),
-                  SavedText(c->saved_p80_if_optional).c_str(),
-                  SavedText(c->saved_p80_if_relaxed).c_str());
+    out += StringPrintf("  %-42s %17s %17s %17s\n",
+                        FitLabel(CellLabel(plan.matrix, c->cell), 42).c_str(),
+                        SavedText(c->saved_p50_if_optional).c_str(),
+                        SavedText(c->saved_p80_if_optional).c_str(),
+                        SavedText(c->saved_p80_if_relaxed).c_str());
   }
   return out;
 }
@@ -177,14 +186,15 @@ std::string TextBottleneckAndDiagnostics(const Plan& plan, const ForecastSummary
   out += Wrap("", BottleneckSentence(plan.matrix, s));
   out += TextSavings(plan, s);
   out += "\nShares of the simulated time (diagnostics)\n";
-  out += Printf("  Turbine available:            %8s\n",
-                Percent(s.turbine_availability).c_str());
-  out += Printf("  Data acquisition available:   %8s\n",
-                Percent(s.daq_availability).c_str());
-  out += Printf("  Wind from a valid sector:     %8s\n",
-                Percent(s.valid_sector_share).c_str());
-  out += Printf("  Curtailment rule in force:    %8s\n", Percent(s.curtailed_share).c_str());
-  out += Printf("  Mean wind speed at hub:       %6.2f m/s\n", s.mean_speed_ms);
+  out += StringPrintf("  Turbine available:            %8s\n",
+                      Percent(s.turbine_availability).c_str());
+  out += StringPrintf("  Data acquisition available:   %8s\n",
+                      Percent(s.daq_availability).c_str());
+  out += StringPrintf("  Wind from a valid sector:     %8s\n",
+                      Percent(s.valid_sector_share).c_str());
+  out += StringPrintf("  Curtailment rule in force:    %8s\n",
+                      Percent(s.curtailed_share).c_str());
+  out += StringPrintf("  Mean wind speed at hub:       %6.2f m/s\n", s.mean_speed_ms);
   return out;
 }
 
@@ -202,10 +212,12 @@ Json CellJson(const CaptureMatrix& m, const CellForecast& c) {
   Json j;
   j["index"] = c.index;
   j["label"] = CellLabel(m, c.cell);
-  const bool event = c.cell.event >= 0 && c.cell.event < static_cast<int>(m.event_types.size());
+  const bool event =
+      c.cell.event >= 0 && c.cell.event < static_cast<int>(m.event_types.size());
   j["kind"] = event ? "event" : "records";
   j["state"] = event ? "event" : OperatingStateName(c.cell.state);
-  j["event"] = event ? Json(m.event_types[static_cast<size_t>(c.cell.event)]) : Json(nullptr);
+  j["event"] =
+      event ? Json(m.event_types[static_cast<size_t>(c.cell.event)]) : Json(nullptr);
   j["wind_ms"] = Json::array({c.cell.wind_ms.lo, c.cell.wind_ms.hi});
   j["ti"] = c.cell.ti_binned ? Json::array({c.cell.ti_pct.lo, c.cell.ti_pct.hi})
                              : Json(nullptr);
@@ -281,13 +293,12 @@ std::string FormatForecastJson(const Plan& plan, const ForecastSummary& s,
                {"horizon_weeks", s.horizon_weeks}};
   j["runs"] = s.runs;
   if (ctx.precision_used) {
-    j["precision"] = {
-        {"quantile", ctx.precision_quantile},
-        {"target_weeks", ctx.precision_target_weeks},
-        {"ci95_width_weeks", std::isfinite(ctx.precision_width_weeks)
-                                 ? Json(ctx.precision_width_weeks)
-                                 : Json(nullptr)},
-        {"met", ctx.precision_met}};
+    j["precision"] = {{"quantile", ctx.precision_quantile},
+                      {"target_weeks", ctx.precision_target_weeks},
+                      {"ci95_width_weeks", std::isfinite(ctx.precision_width_weeks)
+                                               ? Json(ctx.precision_width_weeks)
+                                               : Json(nullptr)},
+                      {"met", ctx.precision_met}};
   }
   j["seed"] = s.seed;
   j["deadline_weeks"] = s.deadline_weeks;
@@ -307,7 +318,8 @@ std::string FormatForecastJson(const Plan& plan, const ForecastSummary& s,
   j["relaxed_share"] = s.relaxed_share;
   j["fill_curve"] = Json::array();
   for (const FillPoint& p : s.fill_curve) {
-    j["fill_curve"].push_back({{"week", p.week}, {"p10", p.p10}, {"p50", p.p50}, {"p90", p.p90}});
+    j["fill_curve"].push_back(
+        {{"week", p.week}, {"p10", p.p10}, {"p50", p.p50}, {"p90", p.p90}});
   }
   j["cells"] = Json::array();
   for (const CellForecast& c : s.cells) j["cells"].push_back(CellJson(plan.matrix, c));

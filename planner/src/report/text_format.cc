@@ -1,45 +1,32 @@
 #include "report/text_format.h"
 
-#include "report/report_numbers.h"
-
 #include <algorithm>
 #include <cmath>
-#include <cstdarg>
-#include <cstdio>
 #include <sstream>
+
+#include "report/report_numbers.h"
 
 namespace planner {
 
-std::string Printf(const char* format, ...) {
-  va_list args, copy;
-  va_start(args, format);
-  va_copy(copy, args);
-  const int size = std::vsnprintf(nullptr, 0, format, copy);
-  va_end(copy);
-  std::string out(size > 0 ? static_cast<size_t>(size) : 0, '\0');
-  if (size > 0) std::vsnprintf(&out[0], out.size() + 1, format, args);
-  va_end(args);
-  return out;
-}
-
 std::string Compact(double x) {
-  return x == std::floor(x) ? Printf("%.0f", x) : Printf("%.1f", x);
+  return x == std::floor(x) ? StringPrintf("%.0f", x) : StringPrintf("%.1f", x);
 }
 
-std::string Percent(double share) { return Printf("%.1f %%", 100.0 * share); }
+std::string Percent(double share) { return StringPrintf("%.1f %%", 100.0 * share); }
 
 std::string DoneBy(const Date& start, const std::optional<double>& weeks) {
   return weeks ? FormatDate(DoneByDate(start, *weeks)) : std::string();
 }
 
 std::string WeeksText(const std::optional<double>& weeks, int width) {
-  return weeks ? Printf("%*.1f", width, *weeks) : Printf("%*s", width, "not reached");
+  return weeks ? StringPrintf("%*.1f", width, *weeks)
+               : StringPrintf("%*s", width, "not reached");
 }
 
 std::string CiRangeText(const QuantileEstimate& q) {
-  if (q.ci_lo && q.ci_hi) return Printf("%.1f - %.1f", *q.ci_lo, *q.ci_hi);
-  if (q.ci_hi) return Printf("up to %.1f", *q.ci_hi);
-  if (q.ci_lo) return Printf("from %.1f", *q.ci_lo);
+  if (q.ci_lo && q.ci_hi) return StringPrintf("%.1f - %.1f", *q.ci_lo, *q.ci_hi);
+  if (q.ci_hi) return StringPrintf("up to %.1f", *q.ci_hi);
+  if (q.ci_lo) return StringPrintf("from %.1f", *q.ci_lo);
   return "not available";
 }
 

@@ -1,5 +1,5 @@
-// Small text helpers shared by the plain-text and HTML writers: printf into
-// a string, percentages, weeks and intervals, done-by dates, word wrapping.
+// Small text helpers of the plain-text writers: percentages, weeks and intervals, done-by
+// dates, word wrapping.
 #ifndef PLANNER_REPORT_TEXT_FORMAT_H_
 #define PLANNER_REPORT_TEXT_FORMAT_H_
 
@@ -8,12 +8,13 @@
 
 #include "planner/calendar.h"
 #include "planner/quantile.h"
+#include "report/report_numbers.h"
 
 namespace planner {
 
 inline constexpr int kTextWidth = 100;  // terminal text is at most this wide
 
-std::string Printf(const char* format, ...) __attribute__((format(printf, 1, 2)));
+// printf into a string: StringPrintf from report/report_numbers.h.
 
 // Whole numbers without decimals, others with one.
 std::string Compact(double x);

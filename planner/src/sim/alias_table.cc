@@ -5,7 +5,9 @@
 namespace planner {
 
 AliasTable::AliasTable(const std::vector<double>& weights)
-    : size_(static_cast<int>(weights.size())), prob_(weights.size()), alias_(weights.size()) {
+    : size_(static_cast<int>(weights.size())),
+      prob_(weights.size()),
+      alias_(weights.size()) {
   const double total = std::accumulate(weights.begin(), weights.end(), 0.0);
   std::vector<double> scaled(weights.size());
   std::vector<int> small, large;

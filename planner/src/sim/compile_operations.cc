@@ -60,9 +60,9 @@ void CompileCurtailment(const Plan& plan, CompiledModel* m) {
                               rule.directions});
     const uint32_t hours = HourMask(rule.hours);
     for (int month = 1; month <= 12; ++month) {
-      const bool in_month = rule.months.empty() ||
-                            std::find(rule.months.begin(), rule.months.end(), month) !=
-                                rule.months.end();
+      const bool in_month =
+          rule.months.empty() ||
+          std::find(rule.months.begin(), rule.months.end(), month) != rule.months.end();
       if (!in_month) continue;
       for (int h = 0; h < 24; ++h) {
         if (hours & (1u << h)) m->curtail_time_mask[month - 1][h] |= 1u << r;
@@ -95,13 +95,15 @@ void CompileEvents(const Plan& plan, CompiledModel* m) {
     m->events[e].wind = BinLookup(edges);
   }
   for (const ManualTest& t : plan.manual_tests) {
-    const auto it = std::find(matrix.event_types.begin(), matrix.event_types.end(), t.name);
+    const auto it =
+        std::find(matrix.event_types.begin(), matrix.event_types.end(), t.name);
     if (it == matrix.event_types.end()) continue;  // no cells: never needed
     CompiledManualTest ct;
     ct.event_type = static_cast<int>(it - matrix.event_types.begin());
     ct.wind_lo_ms = t.wind_lo_ms;
     ct.wind_hi_ms = t.wind_hi_ms;
-    ct.min_interval_steps = static_cast<int64_t>(std::ceil(t.min_interval_h * kStepsPerHour));
+    ct.min_interval_steps =
+        static_cast<int64_t>(std::ceil(t.min_interval_h * kStepsPerHour));
     m->events[ct.event_type].manual = true;
     for (int cell : m->events[ct.event_type].cells) m->manual_test_cell[cell] = 1;
     m->manual_tests.push_back(ct);

@@ -30,14 +30,14 @@ int TiLaw::NearestRow(double speed_ms) const {
   int nearest = 0;
   double best = 1e300;
   for (size_t r = 0; r < row_bins_ms_.size(); ++r) {
-    const double d = std::max(row_bins_ms_[r].lo - speed_ms, speed_ms - row_bins_ms_[r].hi);
+    const double d =
+        std::max(row_bins_ms_[r].lo - speed_ms, speed_ms - row_bins_ms_[r].hi);
     if (d < best) best = d, nearest = static_cast<int>(r);
   }
   return nearest;
 }
 
 namespace {
-
 
 // Valid spans of sector i as fractions of its width.
 std::vector<Bin> ValidSpans(const std::vector<AngleRange>& valid, double start_deg,

@@ -64,9 +64,9 @@ class TiLaw {
   static constexpr double kStepMs = 0.05;
   static constexpr double kMinSpeedMs = 0.5;  // below: TI of 0.5 m/s
   bool table_kind_ = false;
-  std::vector<double> mu_, s_;      // on the grid, or per row
-  BinLookup rows_ms_;               // table kind only
-  std::vector<Bin> row_bins_ms_;    // table kind only, for the nearest row
+  std::vector<double> mu_, s_;    // on the grid, or per row
+  BinLookup rows_ms_;             // table kind only
+  std::vector<Bin> row_bins_ms_;  // table kind only, for the nearest row
 };
 
 // Step intervals [from, to) during which something is out of service.
@@ -79,8 +79,8 @@ struct StepInterval {
 // CompiledModel::curtail_time_mask and the per-direction masks.
 struct CompiledCurtailment {
   double wind_lo_ms = 0, wind_hi_ms = 1e9;
-  bool reduce = false;                  // false: stop
-  std::vector<AngleRange> directions;   // empty = all
+  bool reduce = false;                 // false: stop
+  std::vector<AngleRange> directions;  // empty = all
 };
 
 // Event cells of one event type: wind bins -> cell index.
@@ -102,8 +102,8 @@ inline constexpr int kMaxCurtailmentRules = 32;
 struct CompiledModel {
   // Weather.
   SectorChain sector_chain;
-  std::vector<double> sector_scale_ms;        // Weibull A per sector
-  std::vector<double> sector_shape;           // Weibull k per sector
+  std::vector<double> sector_scale_ms;          // Weibull A per sector
+  std::vector<double> sector_shape;             // Weibull k per sector
   std::vector<SpeedTransform> speed_transform;  // per sector (its k)
   std::array<double, 12> monthly_factors{};
   std::array<double, 24> hourly_factors{};
@@ -135,18 +135,18 @@ struct CompiledModel {
 
   // Events: per event type (CaptureMatrix::event_types order) its cells.
   std::vector<EventCells> events;
-  int start_up_event = -1;     // index into events, -1 if no such cells
+  int start_up_event = -1;  // index into events, -1 if no such cells
   int normal_stop_event = -1;
   std::vector<CompiledManualTest> manual_tests;
-  uint32_t crew_hour_mask = 0;  // bit h: crew on site during hour h
+  uint32_t crew_hour_mask = 0;            // bit h: crew on site during hour h
   std::vector<uint8_t> manual_test_cell;  // per cell: 1 if it counts a manual test
 
   // Matrix.
   std::array<CompiledGrid, kOperatingStateCount> grids;
-  std::vector<uint32_t> required;  // per cell
+  std::vector<uint32_t> required;          // per cell
   std::vector<uint32_t> relaxed_required;  // per cell: ceil(relaxed_share x required)
   double relaxed_share = 0.8;
-  std::vector<uint8_t> optional;   // per cell
+  std::vector<uint8_t> optional;  // per cell
   int required_cells = 0;
 
   // Calendar: per day from start, month index 0..11 and campaign year.

@@ -80,7 +80,8 @@ PairedDifference PairedCompletionDifference(const std::string& a_name,
 }
 
 Comparison RankScenarios(std::vector<ScenarioResult> scenarios,
-                         const std::vector<std::vector<RunResult>>& per_run, RankBy rank_by) {
+                         const std::vector<std::vector<RunResult>>& per_run,
+                         RankBy rank_by) {
   std::vector<size_t> order(scenarios.size());
   for (size_t i = 0; i < order.size(); ++i) order[i] = i;
   for (size_t i = 0; i < scenarios.size(); ++i) {
@@ -90,7 +91,8 @@ Comparison RankScenarios(std::vector<ScenarioResult> scenarios,
     r.cost_p90 = CostAt(r.cost, r.summary.p90);
     double total = 0;
     for (const RunResult& run : per_run[i]) {
-      const int64_t steps = run.completion_step >= 0 ? run.completion_step : run.simulated_steps;
+      const int64_t steps =
+          run.completion_step >= 0 ? run.completion_step : run.simulated_steps;
       total += CampaignCost(r.cost, StepsToWeeks(steps));
       r.expected_cost_is_lower_bound |= run.completion_step < 0;
     }
@@ -128,11 +130,13 @@ std::string BottleneckSentence(const CaptureMatrix& matrix, const ForecastSummar
   }
   const CellForecast& c = s.cells[static_cast<size_t>(s.bottleneck_cell)];
   char buf[512];
-  std::snprintf(buf, sizeof buf, "The campaign waits mostly on %s (last to fill in %.0f %% of runs)",
+  std::snprintf(buf, sizeof buf,
+                "The campaign waits mostly on %s (last to fill in %.0f %% of runs)",
                 CellLabel(matrix, c.cell).c_str(), 100.0 * c.p_last_to_fill);
   std::string out = buf;
   if (c.saved_p80_if_optional && *c.saved_p80_if_optional >= 0.05) {
-    std::snprintf(buf, sizeof buf, "; making it optional would save about %.1f weeks at P80.",
+    std::snprintf(buf, sizeof buf,
+                  "; making it optional would save about %.1f weeks at P80.",
                   *c.saved_p80_if_optional);
     out += buf;
   } else if (c.saved_p80_if_optional) {

@@ -2,8 +2,8 @@
 
 #include <algorithm>
 #include <atomic>
-#include <mutex>
 #include <limits>
+#include <mutex>
 #include <thread>
 
 #include "planner/forecast.h"
@@ -17,7 +17,8 @@ int EffectiveThreads(int requested) {
   return hw == 0 ? 1 : static_cast<int>(hw);
 }
 
-std::vector<RunResult> RunMonteCarlo(const Simulator& sim, const MonteCarloOptions& options,
+std::vector<RunResult> RunMonteCarlo(const Simulator& sim,
+                                     const MonteCarloOptions& options,
                                      ProgressSink* progress) {
   std::vector<RunResult> results(static_cast<size_t>(options.runs));
   std::atomic<long> next{0};

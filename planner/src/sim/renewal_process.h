@@ -26,8 +26,8 @@ namespace planner {
 struct DurationSampler {
   DurationLaw::Kind kind = DurationLaw::Kind::kExponential;
   double mean_steps = 0;
-  double weibull_scale_steps = 0;  // mean / Gamma(1 + 1/k)
-  double inverse_shape = 1;        // 1/k (Weibull)
+  double weibull_scale_steps = 0;    // mean / Gamma(1 + 1/k)
+  double inverse_shape = 1;          // 1/k (Weibull)
   double log_mu = 0, log_sigma = 0;  // lognormal: mu = ln mean - sigma^2/2
 
   DurationSampler() = default;

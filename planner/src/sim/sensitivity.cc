@@ -13,8 +13,8 @@ constexpr double kInf = std::numeric_limits<double>::infinity();
 struct RunFills {
   int64_t latest = -1, second = -1;
   int latest_cell = -1;
-  int unfilled = 0;       // required cells never full while simulated
-  int unfilled_cell = -1; // one of them
+  int unfilled = 0;        // required cells never full while simulated
+  int unfilled_cell = -1;  // one of them
 };
 
 RunFills Fills(const CaptureMatrix& m, const RunResult& r) {
@@ -38,8 +38,8 @@ RunFills Fills(const CaptureMatrix& m, const RunResult& r) {
 
 double Weeks(int64_t step) { return step < 0 ? kInf : StepsToWeeks(step); }
 
-std::optional<double> Saved(const QuantileEstimate& before, const std::vector<double>& after,
-                            double p) {
+std::optional<double> Saved(const QuantileEstimate& before,
+                            const std::vector<double>& after, double p) {
   const QuantileEstimate q = EstimateQuantile(after, p);
   if (!before.value || !q.value) return std::nullopt;
   return *before.value - *q.value;
@@ -67,11 +67,11 @@ void SummarizeSensitivity(const CaptureMatrix& m, const std::vector<RunResult>& 
       const int64_t own = c < runs[i].full_step.size() ? runs[i].full_step[c] : -1;
       const int unfilled_others = f.unfilled - (own < 0 ? 1 : 0);
       // Latest fill among the other required cells.
-      const int64_t others = only_cell ? 0 : (f.latest_cell == cell ? f.second : f.latest);
+      const int64_t others =
+          only_cell ? 0 : (f.latest_cell == cell ? f.second : f.latest);
       const int64_t without = unfilled_others > 0 ? -1 : others;
-      const int64_t relaxed_own = runs[i].relaxed_full_step.size() > c
-                                      ? runs[i].relaxed_full_step[c]
-                                      : own;
+      const int64_t relaxed_own =
+          runs[i].relaxed_full_step.size() > c ? runs[i].relaxed_full_step[c] : own;
       const int64_t relaxed =
           (without < 0 || relaxed_own < 0) ? -1 : std::max(without, relaxed_own);
       optional_weeks[i] = Weeks(without);
@@ -105,8 +105,9 @@ void SummarizeFillCurve(const CaptureMatrix& m, const std::vector<RunResult>& ru
   std::vector<double> shares(runs.size());
   for (int64_t w = 0; w <= weeks; ++w) {
     for (size_t i = 0; i < runs.size(); ++i) {
-      const auto full = std::upper_bound(fills[i].begin(), fills[i].end(), w * kStepsPerWeek) -
-                        fills[i].begin();
+      const auto full =
+          std::upper_bound(fills[i].begin(), fills[i].end(), w * kStepsPerWeek) -
+          fills[i].begin();
       shares[i] = static_cast<double>(full) / required;
     }
     std::sort(shares.begin(), shares.end());

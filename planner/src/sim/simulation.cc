@@ -1,9 +1,8 @@
 #include "planner/simulation.h"
 
 #include <algorithm>
-#include <cmath>
-
 #include <boost/math/distributions/normal.hpp>
+#include <cmath>
 
 #include "planner/random_stream.h"
 #include "sim/compiled_model.h"
@@ -58,7 +57,7 @@ struct RunState {
   double x_ti = 0;               // latent TI normal at step ti_step
   int64_t ti_step = 0;
   bool high_wind_stop = false;
-  int8_t prev_producing = -1;    // -1 before the first step
+  int8_t prev_producing = -1;  // -1 before the first step
   // Outage states, re-evaluated only at the steps where one may change.
   bool turbine_up = true, daq_up = true;
   int64_t next_outage_step = 0;
@@ -115,7 +114,8 @@ class RunLoop {
   uint32_t DirectionRules(int sector, double direction_u) const;
   void UpdateOutages(int64_t step, RunState& s);
   Curtail CurtailmentAt(double speed_ms, uint32_t rules) const;
-  void OnTransition(bool producing, double speed_ms, bool valid, int64_t step, RunState& s);
+  void OnTransition(bool producing, double speed_ms, bool valid, int64_t step,
+                    RunState& s);
   bool TryManualTest(double speed_ms, bool valid, int64_t step, RunState& s);
   void CountEvent(int type, double speed_ms, int64_t step, RunState& s);
   int CellOf(int state, double speed_ms, int64_t step, RunState& s);
@@ -194,7 +194,8 @@ uint32_t RunLoop::DirectionRules(int sector, double direction_u) const {
   for (size_t r = 0; r < m_.curtailment.size(); ++r) {
     const std::vector<AngleRange>& dirs = m_.curtailment[r].directions;
     bool inside = dirs.empty();
-    for (const AngleRange& a : dirs) inside = inside || AngleRangeContains(a, direction_deg);
+    for (const AngleRange& a : dirs)
+      inside = inside || AngleRangeContains(a, direction_deg);
     if (inside) mask |= 1u << r;
   }
   return mask;
@@ -212,7 +213,8 @@ inline void RunLoop::SetDirection(int sector, double direction_u, RunState& s) c
   s.sector_scale_ms = m_.sector_scale_ms[s.sector];
   s.transform = &m_.speed_transform[s.sector];
   s.sector_ok = InSpans(m_.sector_valid_spans[s.sector], s.direction_u);
-  if (!m_.curtailment.empty()) s.direction_rules = DirectionRules(s.sector, s.direction_u);
+  if (!m_.curtailment.empty())
+    s.direction_rules = DirectionRules(s.sector, s.direction_u);
 }
 
 void RunLoop::UpdateOutages(int64_t step, RunState& s) {
@@ -300,11 +302,12 @@ inline void RunLoop::Step(int64_t step, double scale, RunState& s, Engine& weath
   const Curtail curtail = rules != 0 ? CurtailmentAt(speed, rules) : kNotCurtailed;
   s.curtailed_steps += curtail != kNotCurtailed;
 
-  const bool producing = s.turbine_up && !s.high_wind_stop && speed >= m_.cut_in_ms &&
-                         curtail != kStop;
+  const bool producing =
+      s.turbine_up && !s.high_wind_stop && speed >= m_.cut_in_ms && curtail != kStop;
   const bool quality_ok = (r1 & 0xFFFFFFFFULL) >= m_.reject_threshold;
   const bool valid = s.daq_up && s.sector_ok && quality_ok;
-  if (producing != (s.prev_producing == 1)) OnTransition(producing, speed, valid, step, s);
+  if (producing != (s.prev_producing == 1))
+    OnTransition(producing, speed, valid, step, s);
   const int state = producing ? (curtail == kReduce ? 2 : 0) : 1;
   if (s.tests_open > 0 && s.crew_here && producing && curtail == kNotCurtailed &&
       s.daq_up && s.sector_ok && TryManualTest(speed, valid, step, s)) {
@@ -325,8 +328,8 @@ void RunLoop::Trace(int64_t step, double speed_ms, int state, bool quality_ok,
   TracedRecord t;
   t.step = step;
   t.speed_ms = speed_ms;
-  t.direction_deg = std::fmod((s.sector - 0.5 + s.direction_u) * m_.sector_width_deg + 360.0,
-                              360.0);
+  t.direction_deg =
+      std::fmod((s.sector - 0.5 + s.direction_u) * m_.sector_width_deg + 360.0, 360.0);
   t.ti = s.ti_step == step && traced_ti_step_ == step ? traced_ti_ : NAN;
   t.state = static_cast<OperatingState>(state);
   t.turbine_up = s.turbine_up;
@@ -372,12 +375,14 @@ void RunLoop::ApplyState(const CampaignState& state, int64_t start_step, RunStat
   }
   if (!state.has_last_wind) return;
   const int sectors = static_cast<int>(m_.sector_scale_ms.size());
-  const double shifted = std::fmod(state.last_direction_deg / m_.sector_width_deg + 0.5 +
-                                       10.0 * sectors, static_cast<double>(sectors));
+  const double shifted =
+      std::fmod(state.last_direction_deg / m_.sector_width_deg + 0.5 + 10.0 * sectors,
+                static_cast<double>(sectors));
   const int sector = std::min(sectors - 1, static_cast<int>(shifted));
   SetDirection(sector, shifted - sector, s);
   const int64_t day = std::max<int64_t>(0, start_step / kStepsPerDay - 1);
-  const double scale = m_.sector_scale_ms[sector] * m_.monthly_factors[m_.day_month[day]] *
+  const double scale = m_.sector_scale_ms[sector] *
+                       m_.monthly_factors[m_.day_month[day]] *
                        year_factor_[m_.day_year[day]] * m_.hourly_factors[23];
   s.z = NormalScoreOfSpeed(state.last_speed_ms / scale, m_.sector_shape[sector]);
 }
@@ -420,7 +425,8 @@ int64_t RunLoop::NextCheckpoint(int64_t step, int remaining) {
     deadline_passed_ = true;
   }
   if (step >= m_.horizon_steps || (remaining == 0 && deadline_passed_)) return -1;
-  return deadline_passed_ ? m_.horizon_steps : std::min(m_.deadline_steps, m_.horizon_steps);
+  return deadline_passed_ ? m_.horizon_steps
+                          : std::min(m_.deadline_steps, m_.horizon_steps);
 }
 
 void RunLoop::Stop(int64_t steps, const RunState& s) {
@@ -435,7 +441,8 @@ void RunLoop::Stop(int64_t steps, const RunState& s) {
 }  // namespace
 
 Simulator::Simulator(const Plan& plan, const SimulationOptions& options)
-    : model_(std::make_unique<CompiledModel>(CompileModel(plan, options.relaxed_share))) {}
+    : model_(std::make_unique<CompiledModel>(CompileModel(plan, options.relaxed_share))) {
+}
 
 Simulator::~Simulator() = default;
 

@@ -4,9 +4,9 @@
 
 namespace planner {
 namespace {
-constexpr double kR = 3.442619855899;        // start of the tail, Marsaglia & Tsang
-constexpr double kV = 9.91256303526217e-3;   // area of each layer
-constexpr double kM1 = 2147483648.0;         // 2^31
+constexpr double kR = 3.442619855899;       // start of the tail, Marsaglia & Tsang
+constexpr double kV = 9.91256303526217e-3;  // area of each layer
+constexpr double kM1 = 2147483648.0;        // 2^31
 }  // namespace
 
 // The tables are constant data built once before main(); no mutable global.

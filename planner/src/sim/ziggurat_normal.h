@@ -23,7 +23,8 @@ class ZigguratNormal {
     const uint64_t r = e();
     const int32_t hz = static_cast<int32_t>(r >> 32);
     const int iz = static_cast<int>(r & 127);
-    const uint32_t abs_hz = hz < 0 ? 0u - static_cast<uint32_t>(hz) : static_cast<uint32_t>(hz);
+    const uint32_t abs_hz =
+        hz < 0 ? 0u - static_cast<uint32_t>(hz) : static_cast<uint32_t>(hz);
     if (abs_hz < kTables.kn[iz]) return hz * kTables.wn[iz];
     return Slow(r);
   }
