@@ -9,6 +9,7 @@
 #include <cstdio>
 #include <filesystem>
 #include <fstream>
+#include <iterator>
 #include <nlohmann/json.hpp>
 #include <string>
 
@@ -47,6 +48,13 @@ inline std::filesystem::path TempDir(const std::string& tag) {
                               ("fillcast-" + tag + "-" + std::to_string(::getpid()));
   std::filesystem::create_directories(dir);
   return dir;
+}
+
+inline std::string ReadFile(const std::filesystem::path& p) {
+  std::ifstream in(p, std::ios::binary);
+  std::string text((std::istreambuf_iterator<char>(in)),
+                   std::istreambuf_iterator<char>());
+  return text;
 }
 
 inline nlohmann::json ReadJson(const std::filesystem::path& p) {

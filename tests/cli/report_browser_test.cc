@@ -28,12 +28,7 @@ using fillcast_test::RunFillcast;
 using fillcast_test::SourcePath;
 using fillcast_test::TempDir;
 
-std::string ReadFile(const fs::path& p) {
-  std::ifstream in(p, std::ios::binary);
-  std::stringstream s;
-  s << in.rdbuf();
-  return s.str();
-}
+using fillcast_test::ReadFile;
 
 // Runs a shell command; returns its stdout and sets its exit code.
 std::string Shell(const std::string& command, int* exit_code) {

@@ -19,12 +19,7 @@ using fillcast_test::RunFillcast;
 using fillcast_test::SourcePath;
 using fillcast_test::TempDir;
 
-std::string ReadFile(const fs::path& p) {
-  std::ifstream in(p, std::ios::binary);
-  std::stringstream s;
-  s << in.rdbuf();
-  return s.str();
-}
+using fillcast_test::ReadFile;
 
 // CRLF-separated lines (the demo's fields hold no line breaks).
 std::vector<std::string> Lines(const std::string& text) {

@@ -48,10 +48,8 @@ const std::string kTests =
     "      min_interval_h: 24\n"
     "    - {name: grid_loss, wind_ms: [8, 16]}\n";
 
-Plan Parse(const std::string& text) { return reader_test::ParseTestPlan(text); }
-std::string PlanError(const std::string& text) {
-  return reader_test::TestPlanError(text);
-}
+const auto& Parse = reader_test::ParseTestPlan;
+const auto& PlanError = reader_test::TestPlanError;
 
 TEST(CurtailmentReaderTest, ReadsRulesWithTheirConditions) {
   const Plan plan = Parse(kBase + kRule +

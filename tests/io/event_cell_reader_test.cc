@@ -34,10 +34,8 @@ const std::string kBase =
     "      wind_ms: [3, 5]\n"
     "      min_records: 8\n";
 
-Plan Parse(const std::string& text) { return reader_test::ParseTestPlan(text); }
-std::string PlanError(const std::string& text) {
-  return reader_test::TestPlanError(text);
-}
+const auto& Parse = reader_test::ParseTestPlan;
+const auto& PlanError = reader_test::TestPlanError;
 
 TEST(EventCellReaderTest, EventCellsFollowTheRecordCellsWithTypesInFirstSeenOrder) {
   const CaptureMatrix m =

@@ -38,10 +38,8 @@ const std::string kNeighbour =
     "      distance_m: 400\n"
     "      rotor_diameter_m: 100\n";
 
-Plan Parse(const std::string& text) { return reader_test::ParseTestPlan(text); }
-std::string PlanError(const std::string& text) {
-  return reader_test::TestPlanError(text);
-}
+const auto& Parse = reader_test::ParseTestPlan;
+const auto& PlanError = reader_test::TestPlanError;
 
 void ExpectRange(const AngleRange& r, double from_deg, double to_deg) {
   EXPECT_NEAR(r.from_deg, from_deg, 1e-9);

@@ -44,10 +44,8 @@ const std::string kPlanned =
     "      from: 2027-07-12\n"
     "      to: 2027-07-19\n";
 
-Plan Parse(const std::string& text) { return reader_test::ParseTestPlan(text); }
-std::string PlanError(const std::string& text) {
-  return reader_test::TestPlanError(text);
-}
+const auto& Parse = reader_test::ParseTestPlan;
+const auto& PlanError = reader_test::TestPlanError;
 
 TEST(OutageReaderTest, DefaultsAreExponentialWithoutMonthFactorsOrPlannedOutages) {
   const Plan plan = Parse(kBase + kTurbine);
