@@ -3,6 +3,7 @@
 #include <gtest/gtest.h>
 
 #include "planner/monte_carlo.h"
+#include "planner/plan_reader.h"
 #include "planner/simulation.h"
 #include "sim/test_plans.h"
 
@@ -94,6 +95,29 @@ TEST(CampaignStateTest, TraceReproducesTheRunsCounts) {
     counted += r.cell == 0;
   }
   EXPECT_EQ(counted, traced.count_at_end[0]);
+}
+
+// On the demo plan (curtailment, reduced mode, start-up and normal-stop
+// events, manual tests), every count of a traced run is one traced record:
+// its record cell or its event cell.
+TEST(CampaignStateTest, TracedRecordsAndEventsGiveEveryCount) {
+  Plan plan = LoadPlan(std::string(FILLCAST_SOURCE_DIR) + "/demo-site/plan.yaml");
+  plan.horizon_weeks = 20;
+  plan.deadline = AddDays(plan.start, 7 * 20);
+  const Simulator sim(plan);
+  RunResult traced;
+  std::vector<TracedRecord> records;
+  sim.Trace(11, 2, &traced, &records);
+  std::vector<uint32_t> counted(traced.count_at_end.size(), 0);
+  int events = 0;
+  for (const TracedRecord& r : records) {
+    if (r.cell >= 0) ++counted[r.cell];
+    if (r.event_cell >= 0) ++counted[r.event_cell], ++events;
+    if (r.event_cell >= 0) EXPECT_TRUE(r.valid) << "step " << r.step;
+    if (r.event_cell >= 0) EXPECT_GE(r.event_type, 0) << "step " << r.step;
+  }
+  EXPECT_GT(events, 0);
+  EXPECT_EQ(counted, traced.count_at_end);
 }
 
 }  // namespace

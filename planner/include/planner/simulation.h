@@ -65,6 +65,12 @@ struct TracedRecord {
   bool valid = true;         // acquisition up, valid sector, quality passed
   bool manual_test = false;  // a manual test was done in this record
   int cell = -1;             // record cell it counted for, -1 if none
+  // Transient event in this record (index into CaptureMatrix::event_types:
+  // a start-up, a normal stop or a manual test), -1 if none; and the event
+  // cell it counted for, -1 if it did not count (record not valid, or no
+  // event cell at this wind speed).
+  int event_type = -1;
+  int event_cell = -1;
 };
 
 struct CompiledModel;  // lookup tables built once per plan (sim/compiled_model.h)

@@ -106,6 +106,7 @@ class RunLoop {
  private:
   double traced_ti_ = 0;
   int64_t traced_ti_step_ = -1;
+  int traced_event_type_ = -1, traced_event_cell_ = -1;
   void SetDirection(int sector, double direction_u, RunState& s) const;
   RunState Start(uint64_t direction_bits, double z0);
   void DrawYearFactors();
@@ -117,7 +118,7 @@ class RunLoop {
   void OnTransition(bool producing, double speed_ms, bool valid, int64_t step,
                     RunState& s);
   bool TryManualTest(double speed_ms, bool valid, int64_t step, RunState& s);
-  void CountEvent(int type, double speed_ms, int64_t step, RunState& s);
+  int CountEvent(int type, double speed_ms, int64_t step, RunState& s);
   int CellOf(int state, double speed_ms, int64_t step, RunState& s);
   void Count(int cell, int64_t step, RunState& s);
   void Stop(int64_t steps, const RunState& s);
@@ -240,20 +241,24 @@ Curtail RunLoop::CurtailmentAt(double speed_ms, uint32_t rules) const {
   return result;
 }
 
-inline void RunLoop::CountEvent(int type, double speed_ms, int64_t step, RunState& s) {
+// Returns the event cell counted, -1 if none.
+inline int RunLoop::CountEvent(int type, double speed_ms, int64_t step, RunState& s) {
   const EventCells& e = m_.events[type];
   const int i = e.wind.Find(speed_ms);
-  if (i >= 0) Count(e.cells[i], step, s);
+  if (i < 0) return -1;
+  Count(e.cells[i], step, s);
+  return e.cells[i];
 }
 
 // Production started or ended. A start is a start-up whatever stopped the
 // turbine before; an end is a normal stop unless a fault took the turbine out.
 void RunLoop::OnTransition(bool producing, double speed_ms, bool valid, int64_t step,
                            RunState& s) {
-  if (s.prev_producing >= 0 && valid) {
+  if (s.prev_producing >= 0) {
     const int type =
         producing ? m_.start_up_event : (s.turbine_up ? m_.normal_stop_event : -1);
-    if (type >= 0) CountEvent(type, speed_ms, step, s);
+    const int cell = type >= 0 && valid ? CountEvent(type, speed_ms, step, s) : -1;
+    if (trace_ != nullptr) traced_event_type_ = type, traced_event_cell_ = cell;
   }
   s.prev_producing = producing ? 1 : 0;
 }
@@ -271,6 +276,8 @@ bool RunLoop::TryManualTest(double speed_ms, bool valid, int64_t step, RunState&
     if (i < 0 || out_->count_at_end[e.cells[i]] >= m_.required[e.cells[i]]) continue;
     last_test_[t] = step;
     if (valid) Count(e.cells[i], step, s);
+    if (trace_ != nullptr)
+      traced_event_type_ = test.event_type, traced_event_cell_ = valid ? e.cells[i] : -1;
     s.prev_producing = 0;  // the test stopped the turbine: next comes a start-up
     return true;
   }
@@ -339,6 +346,9 @@ void RunLoop::Trace(int64_t step, double speed_ms, int state, bool quality_ok,
   t.valid = s.daq_up && s.sector_ok && quality_ok;
   t.manual_test = manual_test;
   t.cell = cell;
+  t.event_type = traced_event_type_;
+  t.event_cell = traced_event_cell_;
+  traced_event_type_ = traced_event_cell_ = -1;
   trace_->push_back(t);
 }
 
