@@ -26,6 +26,15 @@ TiLaw::TiLaw(const TurbulenceModel& model) {
   last_index_ = static_cast<double>(points - 1) - 1e-9;
 }
 
+int TiLaw::RowOfBin(const Bin& wind_ms) const {
+  if (!table_kind_) return -1;
+  for (size_t r = 0; r < row_bins_ms_.size(); ++r) {
+    if (row_bins_ms_[r].lo <= wind_ms.lo && wind_ms.hi <= row_bins_ms_[r].hi)
+      return static_cast<int>(r);
+  }
+  return -1;
+}
+
 int TiLaw::NearestRow(double speed_ms) const {
   int nearest = 0;
   double best = 1e300;
@@ -101,6 +110,7 @@ void CompileMatrix(const CaptureMatrix& matrix, CompiledModel* m) {
       cg.log_ti_hi.push_back(std::log(b.hi / 100.0));
     }
     cg.cell_index = g.cell_index;
+    for (const Bin& w : g.wind_bins_ms) cg.ti_row.push_back(m->ti_law.RowOfBin(w));
   }
   for (const Cell& c : matrix.cells) {
     m->required.push_back(static_cast<uint32_t>(c.required));
@@ -120,9 +130,9 @@ void CompileCalendar(const Plan& plan, CompiledModel* m) {
   }
 }
 
-// ceil(p * 2^32): the number of 32-bit values v with v * 2^-32 < p.
-uint64_t ProbabilityThreshold(double p) {
-  return static_cast<uint64_t>(std::ceil(p * 4294967296.0));
+// p as a threshold on 16 random bits, to the nearest 1/65,536.
+uint32_t ProbabilityThreshold(double p) {
+  return static_cast<uint32_t>(std::lround(p * kProbabilityScale));
 }
 
 }  // namespace

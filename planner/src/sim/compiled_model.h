@@ -24,6 +24,9 @@ struct CompiledGrid {
   BinLookup wind;
   std::vector<double> log_ti_lo, log_ti_hi;  // empty = not binned
   std::vector<int> cell_index;
+  // Per wind bin: the TI table row that holds the whole bin, -1 where TI
+  // depends on the speed within the bin (TiLaw::RowOfBin).
+  std::vector<int> ti_row;
 
   // TI bin of ln TI, or -1: counts the bins starting at or below the value
   // without branching, then checks that bin's [lo, hi).
@@ -56,6 +59,11 @@ class TiLaw {
     const double s = s_[i] + f * (s_[i + 1] - s_[i]);
     return mu + s * x;
   }
+  // The same for a speed in a wind bin that one table row holds.
+  double RowSample(int row, double x) const { return mu_[row] + s_[row] * x; }
+  // The table row that holds every speed of wind_ms, else -1 (also for the
+  // IEC model, whose parameters vary with the speed).
+  int RowOfBin(const Bin& wind_ms) const;
 
  private:
   // Row nearest to a speed outside every row (as SigmaMomentsAt does).
@@ -96,6 +104,8 @@ struct CompiledManualTest {
   int64_t min_interval_steps = 0;
 };
 
+inline constexpr double kProbabilityScale = 65536.0;
+
 // At most this many curtailment rules (bits of a mask); the reader checks.
 inline constexpr int kMaxCurtailmentRules = 32;
 
@@ -123,11 +133,13 @@ struct CompiledModel {
   std::vector<StepInterval> planned_turbine, planned_daq;  // sorted, merged
   bool parked_counts_during_outage = false;
   double quality_reject = 0;
-  // The same probabilities as 32-bit integer thresholds: u < p is tested as
-  // (32 random bits) < p * 2^32, which is exact for the 32-bit uniform the
-  // simulation uses and needs no integer-to-float conversion.
-  uint64_t keep_threshold = 0;
-  uint64_t reject_threshold = 0;
+  // The sector-keeping and quality-rejection probabilities as thresholds on
+  // 16 random bits: u < p is tested as (16 bits) < round(p * 2^16), so each
+  // probability is applied to the nearest 1/65,536 (docs/methods.md). One
+  // 64-bit draw per step then carries both decisions and the wind speed's
+  // normal innovation.
+  uint32_t keep_threshold = 0;
+  uint32_t reject_threshold = 0;
 
   // Curtailment: rules, and per (month, hour) the bit mask of rules in force.
   std::vector<CompiledCurtailment> curtailment;

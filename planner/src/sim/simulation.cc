@@ -28,6 +28,9 @@ double NormalScoreOfSpeed(double unit_speed, double shape) {
 }
 
 inline double HighUniform(uint64_t r) { return static_cast<double>(r >> 32) * 0x1.0p-32; }
+// The two 16-bit decisions of a step's weather draw (see RunLoop::Step).
+inline uint32_t KeepBits(uint64_t r) { return static_cast<uint32_t>(r >> 32) & 0xFFFFu; }
+inline uint32_t QualityBits(uint64_t r) { return static_cast<uint32_t>(r >> 48); }
 inline double LowUniform(uint64_t r) {
   return static_cast<double>(r & 0xFFFFFFFFULL) * 0x1.0p-32;
 }
@@ -50,14 +53,17 @@ struct RunState {
   // Cached for the current sector and direction (they change only on a new
   // draw of the sector, about 3 % of steps at typical persistence).
   double sector_scale_ms = 0;
+  double hour_scale = 1;   // month, year and hour factors of this hour
+  double speed_scale = 0;  // sector_scale_ms * hour_scale
   const SpeedTransform* transform = nullptr;
   bool sector_ok = false;
+  bool recordable = false;       // daq_up && sector_ok
   uint32_t direction_rules = 0;  // curtailment rules whose direction holds
   double z = 0;                  // latent wind-speed normal
   double x_ti = 0;               // latent TI normal at step ti_step
   int64_t ti_step = 0;
   bool high_wind_stop = false;
-  int8_t prev_producing = -1;  // -1 before the first step
+  bool producing = false;  // in the previous step
   // Outage states, re-evaluated only at the steps where one may change.
   bool turbine_up = true, daq_up = true;
   int64_t next_outage_step = 0;
@@ -69,7 +75,11 @@ struct RunState {
   // First step at which the loop must look at the deadline, the horizon or a
   // completed matrix (one comparison per step instead of three).
   int64_t checkpoint = 0;
+  // Diagnostics. The time shares are summed per interval, when the outage
+  // states or the direction change (and at the end), not per step.
   int64_t turbine_up_steps = 0, daq_up_steps = 0, valid_sector_steps = 0;
+  int64_t outages_since = 0;    // first step of the current outage states
+  int64_t direction_since = 0;  // first step of the current direction
   int64_t curtailed_steps = 0;
   double speed_sum_ms = 0;
 };
@@ -96,6 +106,8 @@ class RunLoop {
   void Run(const CampaignState* state);
 
  private:
+  template <bool kTrace>
+  void RunSteps(int64_t first_day, int64_t step, RunState& s, Engine& weather);
   void ApplyState(const CampaignState& state, int64_t start_step, RunState& s);
   void Trace(int64_t step, double speed_ms, int state, bool quality_ok, bool manual_test,
              int cell, const RunState& s);
@@ -107,11 +119,12 @@ class RunLoop {
   double traced_ti_ = 0;
   int64_t traced_ti_step_ = -1;
   int traced_event_type_ = -1, traced_event_cell_ = -1;
-  void SetDirection(int sector, double direction_u, RunState& s) const;
+  void SetDirection(int sector, double direction_u, int64_t step, RunState& s) const;
   RunState Start(uint64_t direction_bits, double z0);
   void DrawYearFactors();
-  void Step(int64_t step, double scale, RunState& s, Engine& weather);
-  void NewDirection(uint64_t bits, RunState& s) const;
+  template <bool kTrace>
+  void Step(int64_t step, RunState& s, Engine& weather);
+  void NewDirection(uint64_t bits, int64_t step, RunState& s) const;
   uint32_t DirectionRules(int sector, double direction_u) const;
   void UpdateOutages(int64_t step, RunState& s);
   Curtail CurtailmentAt(double speed_ms, uint32_t rules) const;
@@ -135,6 +148,7 @@ class RunLoop {
   RunResult* out_;
   std::vector<double> year_factor_;  // per campaign year
   bool deadline_passed_ = false;
+  int64_t first_step_ = 0;  // no production start or stop is counted in it
 };
 
 // direction_bits and z0 are the weather stream's first draws. (The engine
@@ -150,7 +164,7 @@ RunState RunLoop::Start(uint64_t direction_bits, double z0) {
   out_->simulated_steps = 0;
   // Start in the stationary distribution of direction and speed.
   RunState s;
-  NewDirection(direction_bits, s);
+  NewDirection(direction_bits, 0, s);
   s.z = z0;
   s.x_ti = normal_(ti_engine_);
   s.remaining = m_.required_cells;
@@ -183,7 +197,9 @@ inline int RunLoop::CellOf(int state, double speed_ms, int64_t step, RunState& s
   if (ti_bins == 0) return g.cell_index[w];
   s.x_ti = m_.ti_ar1.Advance(s.x_ti, step - s.ti_step, normal_(ti_engine_));
   s.ti_step = step;
-  const double log_ti = m_.ti_law.LogSample(speed_ms, s.x_ti);
+  const int row = g.ti_row[w];
+  const double log_ti = row >= 0 ? m_.ti_law.RowSample(row, s.x_ti)
+                                 : m_.ti_law.LogSample(speed_ms, s.x_ti);
   if (trace_ != nullptr) traced_ti_ = std::exp(log_ti), traced_ti_step_ = step;
   const int t = g.TiBin(log_ti);
   return t < 0 ? -1 : g.cell_index[w * ti_bins + t];
@@ -204,25 +220,37 @@ uint32_t RunLoop::DirectionRules(int sector, double direction_u) const {
 
 // A new draw of the sector (even of the same one) is a new direction in it.
 // Both uniforms come from one 64-bit word.
-inline void RunLoop::NewDirection(uint64_t bits, RunState& s) const {
-  SetDirection(m_.sector_chain.frequencies.Draw(HighUniform(bits)), LowUniform(bits), s);
+inline void RunLoop::NewDirection(uint64_t bits, int64_t step, RunState& s) const {
+  SetDirection(m_.sector_chain.frequencies.Draw(HighUniform(bits)), LowUniform(bits), step,
+               s);
 }
 
-inline void RunLoop::SetDirection(int sector, double direction_u, RunState& s) const {
+// The direction from `step` on.
+inline void RunLoop::SetDirection(int sector, double direction_u, int64_t step,
+                                  RunState& s) const {
+  if (s.sector_ok) s.valid_sector_steps += step - s.direction_since;
+  s.direction_since = step;
   s.sector = sector;
   s.direction_u = direction_u;
   s.sector_scale_ms = m_.sector_scale_ms[s.sector];
+  s.speed_scale = s.sector_scale_ms * s.hour_scale;
   s.transform = &m_.speed_transform[s.sector];
   s.sector_ok = InSpans(m_.sector_valid_spans[s.sector], s.direction_u);
+  s.recordable = s.daq_up && s.sector_ok;
   if (!m_.curtailment.empty())
     s.direction_rules = DirectionRules(s.sector, s.direction_u);
 }
 
+// The outage states from `step` on.
 void RunLoop::UpdateOutages(int64_t step, RunState& s) {
+  if (s.turbine_up) s.turbine_up_steps += step - s.outages_since;
+  if (s.daq_up) s.daq_up_steps += step - s.outages_since;
+  s.outages_since = step;
   const bool turbine_random_up = turbine_.UpAt(step);
   const bool daq_random_up = daq_.UpAt(step);
   s.turbine_up = turbine_random_up && !planned_turbine_.InAt(step);
   s.daq_up = daq_random_up && !planned_daq_.InAt(step);
+  s.recordable = s.daq_up && s.sector_ok;
   s.next_outage_step =
       std::min({turbine_.NextChangeStep(), daq_.NextChangeStep(),
                 planned_turbine_.NextChangeStep(), planned_daq_.NextChangeStep()});
@@ -254,13 +282,13 @@ inline int RunLoop::CountEvent(int type, double speed_ms, int64_t step, RunState
 // turbine before; an end is a normal stop unless a fault took the turbine out.
 void RunLoop::OnTransition(bool producing, double speed_ms, bool valid, int64_t step,
                            RunState& s) {
-  if (s.prev_producing >= 0) {
+  if (step != first_step_) {
     const int type =
         producing ? m_.start_up_event : (s.turbine_up ? m_.normal_stop_event : -1);
     const int cell = type >= 0 && valid ? CountEvent(type, speed_ms, step, s) : -1;
     if (trace_ != nullptr) traced_event_type_ = type, traced_event_cell_ = cell;
   }
-  s.prev_producing = producing ? 1 : 0;
+  s.producing = producing;
 }
 
 // The crew is on site, the turbine produces normally and the record would be
@@ -278,21 +306,22 @@ bool RunLoop::TryManualTest(double speed_ms, bool valid, int64_t step, RunState&
     if (valid) Count(e.cells[i], step, s);
     if (trace_ != nullptr)
       traced_event_type_ = test.event_type, traced_event_cell_ = valid ? e.cells[i] : -1;
-    s.prev_producing = 0;  // the test stopped the turbine: next comes a start-up
+    s.producing = false;  // the test stopped the turbine: next comes a start-up
     return true;
   }
   return false;
 }
 
-inline void RunLoop::Step(int64_t step, double scale, RunState& s, Engine& weather) {
-  // Weather: a fixed number of draws per step, whatever happens below. r1's
-  // high half decides whether the sector is drawn anew (then SplitMix64 of r1
-  // supplies the new sector and direction), its low half the quality check.
-  const uint64_t r1 = weather();
-  const double e_z = normal_(weather);
-  if ((r1 >> 32) >= m_.keep_threshold) NewDirection(SplitMix64(r1), s);
-  s.z = m_.wind_ar1.Next(s.z, e_z);
-  const double speed = s.sector_scale_ms * scale * (*s.transform)(s.z);
+// One 10-minute record. The weather takes one 64-bit draw per step, whatever
+// happens below: its low 32 bits make the wind speed's normal innovation, bits
+// 32-47 decide whether the sector is drawn anew (then SplitMix64 of the draw
+// supplies the new sector and direction), bits 48-63 the quality check.
+template <bool kTrace>
+inline void RunLoop::Step(int64_t step, RunState& s, Engine& weather) {
+  const uint64_t r = weather();
+  if (KeepBits(r) >= m_.keep_threshold) NewDirection(SplitMix64(r), step, s);
+  s.z = m_.wind_ar1.Next(s.z, ZigguratNormal::FromWord(static_cast<uint32_t>(r)));
+  const double speed = s.speed_scale * (*s.transform)(s.z);
   s.speed_sum_ms += speed;
 
   // Turbine state with cut-out hysteresis.
@@ -302,32 +331,31 @@ inline void RunLoop::Step(int64_t step, double scale, RunState& s, Engine& weath
     s.high_wind_stop = false;
   }
   if (step >= s.next_outage_step) UpdateOutages(step, s);
-  s.turbine_up_steps += s.turbine_up;
-  s.daq_up_steps += s.daq_up;
-  s.valid_sector_steps += s.sector_ok;
-  const uint32_t rules = s.hour_rules & s.direction_rules;
-  const Curtail curtail = rules != 0 ? CurtailmentAt(speed, rules) : kNotCurtailed;
-  s.curtailed_steps += curtail != kNotCurtailed;
-
+  Curtail curtail = kNotCurtailed;
+  if (const uint32_t rules = s.hour_rules & s.direction_rules; rules != 0) {
+    curtail = CurtailmentAt(speed, rules);
+    s.curtailed_steps += curtail != kNotCurtailed;
+  }
   const bool producing =
       s.turbine_up && !s.high_wind_stop && speed >= m_.cut_in_ms && curtail != kStop;
-  const bool quality_ok = (r1 & 0xFFFFFFFFULL) >= m_.reject_threshold;
-  const bool valid = s.daq_up && s.sector_ok && quality_ok;
-  if (producing != (s.prev_producing == 1))
-    OnTransition(producing, speed, valid, step, s);
+  const bool quality_ok = QualityBits(r) >= m_.reject_threshold;
+  if (producing != s.producing)
+    OnTransition(producing, speed, s.recordable && quality_ok, step, s);
   const int state = producing ? (curtail == kReduce ? 2 : 0) : 1;
-  if (s.tests_open > 0 && s.crew_here && producing && curtail == kNotCurtailed &&
-      s.daq_up && s.sector_ok && TryManualTest(speed, valid, step, s)) {
-    // A test record is a transient, not a production record.
-    if (trace_ != nullptr) Trace(step, speed, state, quality_ok, true, -1, s);
-    return;
-  }
   int cell = -1;
-  if (valid && (producing || s.turbine_up || m_.parked_counts_during_outage)) {
-    cell = CellOf(state, speed, step, s);
-    if (cell >= 0) Count(cell, step, s);
+  if (s.recordable) {
+    if (s.tests_open > 0 && s.crew_here && producing && curtail == kNotCurtailed &&
+        TryManualTest(speed, quality_ok, step, s)) {
+      // A test record is a transient, not a production record.
+      if constexpr (kTrace) Trace(step, speed, state, quality_ok, true, -1, s);
+      return;
+    }
+    if (quality_ok && (producing || s.turbine_up || m_.parked_counts_during_outage)) {
+      cell = CellOf(state, speed, step, s);
+      if (cell >= 0) Count(cell, step, s);
+    }
   }
-  if (trace_ != nullptr) Trace(step, speed, state, quality_ok, false, cell, s);
+  if constexpr (kTrace) Trace(step, speed, state, quality_ok, false, cell, s);
 }
 
 void RunLoop::Trace(int64_t step, double speed_ms, int state, bool quality_ok,
@@ -389,7 +417,7 @@ void RunLoop::ApplyState(const CampaignState& state, int64_t start_step, RunStat
       std::fmod(state.last_direction_deg / m_.sector_width_deg + 0.5 + 10.0 * sectors,
                 static_cast<double>(sectors));
   const int sector = std::min(sectors - 1, static_cast<int>(shifted));
-  SetDirection(sector, shifted - sector, s);
+  SetDirection(sector, shifted - sector, start_step, s);
   const int64_t day = std::max<int64_t>(0, start_step / kStepsPerDay - 1);
   const double scale = m_.sector_scale_ms[sector] *
                        m_.monthly_factors[m_.day_month[day]] *
@@ -403,15 +431,27 @@ void RunLoop::Run(const CampaignState* state) {
   const double z0 = normal_(weather);
   RunState s = Start(direction_bits, z0);
   const int64_t first_day = state != nullptr ? state->elapsed_days : 0;
-  int64_t step = first_day * kStepsPerDay;
+  const int64_t step = first_day * kStepsPerDay;
+  first_step_ = step;
+  s.direction_since = s.outages_since = step;
   if (state != nullptr) ApplyState(*state, step, s);
   s.checkpoint = step;
+  if (trace_ != nullptr) {
+    RunSteps<true>(first_day, step, s, weather);
+  } else {
+    RunSteps<false>(first_day, step, s, weather);
+  }
+}
+
+template <bool kTrace>
+void RunLoop::RunSteps(int64_t first_day, int64_t step, RunState& s, Engine& weather) {
   const int64_t days = static_cast<int64_t>(m_.day_month.size());
   for (int64_t day = first_day; day < days; ++day) {
     const int month = m_.day_month[day];
     const double day_scale = m_.monthly_factors[month] * year_factor_[m_.day_year[day]];
     for (int hour = 0; hour < 24; ++hour) {
-      const double scale = day_scale * m_.hourly_factors[hour];
+      s.hour_scale = day_scale * m_.hourly_factors[hour];
+      s.speed_scale = s.sector_scale_ms * s.hour_scale;
       s.hour_rules = m_.curtail_time_mask[month][hour];
       s.crew_here = m_.day_crew[day] && ((m_.crew_hour_mask >> hour) & 1u);
       for (int k = 0; k < kStepsPerHour; ++k, ++step) {
@@ -419,7 +459,7 @@ void RunLoop::Run(const CampaignState* state) {
           s.checkpoint = NextCheckpoint(step, s.remaining);
           if (s.checkpoint < 0) return Stop(step, s);
         }
-        Step(step, scale, s, weather);
+        Step<kTrace>(step, s, weather);
       }
     }
   }
@@ -441,9 +481,10 @@ int64_t RunLoop::NextCheckpoint(int64_t step, int remaining) {
 
 void RunLoop::Stop(int64_t steps, const RunState& s) {
   out_->simulated_steps = steps;
-  out_->turbine_up_steps = s.turbine_up_steps;
-  out_->daq_up_steps = s.daq_up_steps;
-  out_->valid_sector_steps = s.valid_sector_steps;
+  out_->turbine_up_steps = s.turbine_up_steps + (s.turbine_up ? steps - s.outages_since : 0);
+  out_->daq_up_steps = s.daq_up_steps + (s.daq_up ? steps - s.outages_since : 0);
+  out_->valid_sector_steps =
+      s.valid_sector_steps + (s.sector_ok ? steps - s.direction_since : 0);
   out_->curtailed_steps = s.curtailed_steps;
   out_->speed_sum_ms = s.speed_sum_ms;
 }
