@@ -72,6 +72,22 @@ inline std::vector<double> SpeedsMs(const std::string& code) {
   return out;
 }
 
+// Month (1-12) and day of each row, in file order (from the date column).
+struct MonthDay {
+  int month = 1, day = 1;
+};
+inline std::vector<MonthDay> Dates() {
+  std::ifstream in(SpeedsFile());
+  std::string line;
+  std::getline(in, line);
+  std::vector<MonthDay> out;
+  while (std::getline(in, line)) {
+    const std::string date = Cells(line).at(0);  // YYYY-MM-DD
+    out.push_back({std::atoi(date.substr(5, 2).c_str()), std::atoi(date.substr(8, 2).c_str())});
+  }
+  return out;
+}
+
 }  // namespace irish_wind
 
 #endif  // FILLCAST_TESTS_MODEL_IRISH_WIND_DATA_H_

@@ -112,9 +112,11 @@ TEST(CampaignStateTest, TracedRecordsAndEventsGiveEveryCount) {
   int events = 0;
   for (const TracedRecord& r : records) {
     if (r.cell >= 0) ++counted[r.cell];
-    if (r.event_cell >= 0) ++counted[r.event_cell], ++events;
-    if (r.event_cell >= 0) EXPECT_TRUE(r.valid) << "step " << r.step;
-    if (r.event_cell >= 0) EXPECT_GE(r.event_type, 0) << "step " << r.step;
+    if (r.event_cell < 0) continue;
+    ++counted[r.event_cell];
+    ++events;
+    EXPECT_TRUE(r.valid) << "step " << r.step;
+    EXPECT_GE(r.event_type, 0) << "step " << r.step;
   }
   EXPECT_GT(events, 0);
   EXPECT_EQ(counted, traced.count_at_end);

@@ -5,6 +5,7 @@
 #define PLANNER_PLAN_H_
 
 #include <array>
+#include <memory>
 #include <string>
 #include <vector>
 
@@ -12,6 +13,7 @@
 #include "planner/calendar.h"
 #include "planner/capture_matrix.h"
 #include "planner/disturbed_sector.h"
+#include "planner/replay.h"
 #include "planner/site_model.h"
 
 namespace planner {
@@ -139,7 +141,16 @@ struct Plan {
 
   CaptureMatrix matrix;
   CostModel cost;
+
+  // Weather: null = the site model's parametric weather (the default); set =
+  // a block bootstrap of a measured series (plan section `weather`, source
+  // replay). Shared, read-only: plans are copied for scenarios.
+  std::shared_ptr<const WeatherReplay> replay;
 };
+
+// The files a plan was read from: the plan, its site model and, under
+// replay, the measured series. Outputs never overwrite them.
+std::vector<std::string> PlanInputFiles(const Plan& p);
 
 // Steps from start to deadline, and to the horizon.
 int64_t DeadlineSteps(const Plan& p);

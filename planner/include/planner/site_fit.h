@@ -58,6 +58,10 @@ struct MetCsvOptions {
   std::string std_column;              // optional: its standard deviation (for TI)
   std::string direction_column;        // optional: direction the wind comes from, deg
   SpeedUnit units = SpeedUnit::kAuto;  // of speed and std alike
+  // Empty: messages name the fit-site flags (--speed, --units). A plan's
+  // section (e.g. "weather"): they name its fields (weather.columns.speed,
+  // weather.units).
+  std::string field_prefix;
 };
 
 // One usable record of a measured series, in SI units.

@@ -70,8 +70,7 @@ int RunCompare(const CompareArgs& args) {
         SummarizeForecast(plans[i].matrix, sim.deadline_steps(), sim.horizon_steps(),
                           per_run.back(), mc.seed, sim.relaxed_share());
     scenarios.push_back(std::move(r));
-    inputs.push_back(plans[i].source_file);
-    inputs.push_back(plans[i].site_file);
+    for (const std::string& f : PlanInputFiles(plans[i])) inputs.push_back(f);
   }
   const Comparison comparison = RankScenarios(scenarios, per_run, rank_by);
   ReportContext ctx;

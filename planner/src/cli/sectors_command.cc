@@ -198,7 +198,7 @@ int RunSectors(const SectorsArgs& args) {
   const SectorsResult result = Compute(plan);
   if (!args.json_path.empty()) {
     WriteOutputFile(args.json_path, FormatJson(plan, result), args.force,
-                    {plan.source_file, plan.site_file}, "--json");
+                    PlanInputFiles(plan), "--json");
   }
   std::cout << FormatText(plan, result);
   return kExitOk;

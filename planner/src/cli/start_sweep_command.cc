@@ -56,7 +56,7 @@ int RunSweep(const SweepArgs& args) {
   ReportContext ctx;
   ctx.tool_version = FILLCAST_VERSION;
   ctx.threads = EffectiveThreads(mc.threads);
-  const std::vector<std::string> inputs = {plan.source_file, plan.site_file};
+  const std::vector<std::string> inputs = PlanInputFiles(plan);
   if (!args.json_path.empty()) {
     WriteOutputFile(args.json_path,
                     FormatStartSweepJson(plan, rows, ctx, mc.runs, mc.seed),

@@ -21,6 +21,9 @@ constexpr int kExamplesPerReason = 3;
 constexpr std::size_t kMaxQuotedChars = 40;
 constexpr std::size_t kMaxListedColumns = 20;
 constexpr int64_t kSecondsPerDay = 86400;
+// Rows of met data are short; a line longer than this is the wrong file (or a
+// device such as /dev/zero, which has no line ends at all).
+constexpr std::size_t kMaxLineBytes = 1 << 20;
 const char kTimestampFormats[] =
     "YYYY-MM-DD, YYYY-MM-DD HH:MM[:SS] or YYYY-MM-DDTHH:MM[:SS]";
 const double kNaN = std::numeric_limits<double>::quiet_NaN();
@@ -152,6 +155,14 @@ class Parser {
   Parser(const std::string& file, const MetCsvOptions& options)
       : file_(file), options_(options) {}
 
+  // How messages name a setting: the fit-site flag ("--speed"), or under a
+  // plan's field prefix the plan field ("weather.columns.speed").
+  std::string Name(const std::string& option) const {
+    if (options_.field_prefix.empty() || option.empty()) return option;
+    if (option == "--units") return options_.field_prefix + ".units";
+    return options_.field_prefix + ".columns." + option.substr(2);
+  }
+
   void ReadHeader(const std::string& line, int64_t line_no);
   void ReadRow(const std::string& line, int64_t line_no);
   MetSeries Finish();
@@ -200,25 +211,25 @@ int Parser::FindColumn(const std::string& requested, const Role& role) const {
   }
   if (hits.size() > 1) {
     if (!requested.empty()) {
-      FailHeader(role.option, Quoted(requested) + " names columns " +
+      FailHeader(Name(role.option), Quoted(requested) + " names columns " +
                                   std::to_string(hits[0] + 1) + " and " +
                                   std::to_string(hits[1] + 1) +
                                   " of the header; column names must be unique");
     }
-    FailHeader(role.option, "not given, and columns '" + header_[hits[0]] + "' and '" +
+    FailHeader(Name(role.option), "not given, and columns '" + header_[hits[0]] + "' and '" +
                                 header_[hits[1]] + "' both have usual " + role.what +
-                                " names; choose one with " + role.option);
+                                " names; choose one with " + Name(role.option));
   }
   if (hits.empty() && !requested.empty()) {
-    FailHeader(role.option,
+    FailHeader(Name(role.option),
                Quoted(requested) +
                    " is not a column of the header; columns: " + ColumnList(header_));
   }
   if (hits.empty() && role.required) {
-    FailHeader(role.option, std::string("not given, and no column has a usual ") +
+    FailHeader(Name(role.option), std::string("not given, and no column has a usual ") +
                                 role.what + " name (" + Join(*role.usual) +
                                 "); columns: " + ColumnList(header_) + "; name the " +
-                                role.what + " column with " + role.option);
+                                role.what + " column with " + Name(role.option));
   }
   return hits.empty() ? -1 : hits[0];
 }
@@ -241,7 +252,7 @@ void Parser::ReadHeader(const std::string& line, int64_t line_no) {
   for (std::size_t i = 0; i < used.size(); ++i) {
     for (std::size_t j = 0; j < i; ++j) {
       if (used[i].first >= 0 && used[i].first == used[j].first) {
-        FailHeader(used[i].second->option, Quoted(header_[used[i].first]) +
+        FailHeader(Name(used[i].second->option), Quoted(header_[used[i].first]) +
                                                " is already the " + used[j].second->what +
                                                " column; choose another column");
       }
@@ -273,18 +284,21 @@ void Parser::ResolveUnits() {
       r.units = UnitOf(file);
       r.units_source = "from the file name '" + base + "'";
     } else {
-      FailHeader("--units", "cannot tell the unit of speed column " + Quoted(speed_name) +
-                                " from its name or the file name; pass --units ms or "
-                                "--units knots");
+      FailHeader(Name("--units"),
+                 "cannot tell the unit of speed column " + Quoted(speed_name) +
+                     " from its name or the file name; " +
+                     (options_.field_prefix.empty()
+                          ? std::string("pass --units ms or --units knots")
+                          : "set " + Name("--units") + " to ms or knots"));
     }
   }
   if (std_col_ >= 0) {
     const UnitHint std_hint = HintOf(header_[std_col_]);
     if (Decided(std_hint) && UnitOf(std_hint) != r.units) {
-      FailHeader("--std", "column " + Quoted(header_[std_col_]) + " is in " +
+      FailHeader(Name("--std"), "column " + Quoted(header_[std_col_]) + " is in " +
                               SpeedUnitName(UnitOf(std_hint)) + " but the speed is in " +
                               SpeedUnitName(r.units) +
-                              "; both must be in one unit (set it with --units)");
+                              "; both must be in one unit (set it with " + Name("--units") + ")");
     }
   }
   to_ms_ = r.units == SpeedUnit::kKnots ? kMetresPerSecondPerKnot : 1.0;
@@ -486,6 +500,23 @@ MetSeries Parser::Finish() {
   return std::move(series_);
 }
 
+// The next line of `in` into *line (without its '\n'); false at the end.
+// Throws when a line exceeds kMaxLineBytes, instead of reading on forever.
+bool ReadLine(std::istream& in, std::vector<char>& buffer, std::string* line,
+              const std::string& file, int64_t line_no) {
+  in.getline(buffer.data(), static_cast<std::streamsize>(buffer.size()));
+  const std::size_t n = static_cast<std::size_t>(in.gcount());
+  if (in.fail() && !in.eof() && n + 1 >= buffer.size()) {
+    ThrowAt(SourceLocation{file, static_cast<int>(line_no), 0}, "",
+            "line is longer than 1 MiB; expected a CSV file of met data, one record "
+            "per line");
+  }
+  if (n == 0 && in.fail()) return false;
+  // getline counts the '\n' it consumed but does not store it.
+  line->assign(buffer.data(), in.eof() ? n : n - 1);
+  return true;
+}
+
 }  // namespace
 
 const char* SpeedUnitName(SpeedUnit unit) {
@@ -623,9 +654,10 @@ MetSeries ReadMetCsv(std::istream& in, const std::string& file_name,
                      const MetCsvOptions& options) {
   Parser parser(file_name, options);
   std::string line;
+  std::vector<char> buffer(kMaxLineBytes + 2);
   int64_t line_no = 0;
   bool have_header = false;
-  while (std::getline(in, line)) {
+  while (ReadLine(in, buffer, &line, file_name, line_no + 1)) {
     ++line_no;
     if (line_no == 1 && line.compare(0, 3, "\xEF\xBB\xBF") == 0) line.erase(0, 3);
     if (Trim(line).empty()) continue;

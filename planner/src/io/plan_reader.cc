@@ -18,6 +18,7 @@
 #include "io/manual_test_reader.h"
 #include "io/outage_reader.h"
 #include "io/plan_fields.h"
+#include "io/weather_reader.h"
 #include "io/yaml_fields.h"
 
 namespace planner {
@@ -31,6 +32,7 @@ using io::kInfinity;
 
 const std::vector<std::string> kPlanFields = {"name",
                                               "site_model",
+                                              "weather",
                                               "campaign",
                                               "turbine",
                                               "valid_sectors_deg",
@@ -184,6 +186,7 @@ Plan ParsePlan(const std::string& yaml_text, const std::string& file_name,
   plan.matrix = io::ReadCaptureMatrix(m.Get("capture_matrix"), plan);
   // Last, so that the plan's own mistakes are reported before the site's.
   ReadSite(m.Get("site_model"), base_dir, &plan);
+  if (const auto f = m.Find("weather")) io::ReadWeather(*f, base_dir, &plan);
   return plan;
 }
 

@@ -126,6 +126,7 @@ void CompileCalendar(const Plan& plan, CompiledModel* m) {
   const int64_t first = DaysFromCivil(plan.start);
   for (int64_t d = 0; d < days; ++d) {
     m->day_month.push_back(static_cast<uint8_t>(CivilFromDays(first + d).month - 1));
+    if (m->replay) m->day_of_year.push_back(static_cast<uint16_t>(DayOfYear365(first + d)));
     m->day_year.push_back(static_cast<uint16_t>(d / 365));
   }
 }
@@ -140,6 +141,7 @@ uint32_t ProbabilityThreshold(double p) {
 CompiledModel CompileModel(const Plan& plan, double relaxed_share) {
   CompiledModel m;
   m.relaxed_share = relaxed_share;
+  m.replay = plan.replay;
   CompileWeather(plan.site, plan.valid_sectors, &m);
   m.cut_in_ms = plan.turbine.cut_in_ms;
   m.cut_out_ms = plan.turbine.cut_out_ms;

@@ -5,6 +5,7 @@
 #define PLANNER_SIM_COMPILED_MODEL_H_
 
 #include <array>
+#include <memory>
 #include <cstdint>
 #include <vector>
 
@@ -160,6 +161,11 @@ struct CompiledModel {
   double relaxed_share = 0.8;
   std::vector<uint8_t> optional;  // per cell
   int required_cells = 0;
+
+  // Replay of measured weather (null: the parametric weather above). The
+  // plan's shared tables; day_of_year per simulated day picks the pool.
+  std::shared_ptr<const WeatherReplay> replay;
+  std::vector<uint16_t> day_of_year;
 
   // Calendar: per day from start, month index 0..11 and campaign year.
   std::vector<uint8_t> day_month;

@@ -18,6 +18,7 @@ constexpr uint64_t kTurbineSalt = 0x74757262696E6531ULL;
 constexpr uint64_t kDaqSalt = 0x6461712D6F757421ULL;
 constexpr uint64_t kYearSalt = 0x796561722D666163ULL;
 constexpr uint64_t kTiSalt = 0x74692D6C6174656EULL;
+constexpr uint64_t kReplaySalt = 0x7265706C61792D62ULL;
 
 // Normal score z with Phi(z) = F(x) for a unit-scale Weibull of shape k:
 // the inverse of SpeedTransform (Boost.Math's normal quantile).
@@ -60,6 +61,12 @@ struct RunState {
   bool recordable = false;       // daq_up && sector_ok
   uint32_t direction_rules = 0;  // curtailment rules whose direction holds
   double z = 0;                  // latent wind-speed normal
+  // Replay: the slot of the measured series in use, its speed and direction,
+  // and its ln TI (NaN: none measured; TI then comes from the TI model).
+  int64_t replay_slot = -1;
+  double replay_speed_ms = 0;
+  float replay_direction_deg = -1;
+  double measured_log_ti = NAN;
   double x_ti = 0;               // latent TI normal at step ti_step
   int64_t ti_step = 0;
   bool high_wind_stop = false;
@@ -106,8 +113,11 @@ class RunLoop {
   void Run(const CampaignState* state);
 
  private:
-  template <bool kTrace>
+  template <bool kTrace, bool kReplay>
   void RunSteps(int64_t first_day, int64_t step, RunState& s, Engine& weather);
+  void ReplaySlot(int64_t slot, int64_t step, RunState& s) const;
+  int64_t DrawReplayBlock(int64_t day, Engine& e) const;
+  void SetDirectionDegrees(double direction_deg, int64_t step, RunState& s) const;
   void ApplyState(const CampaignState& state, int64_t start_step, RunState& s);
   void Trace(int64_t step, double speed_ms, int state, bool quality_ok, bool manual_test,
              int cell, const RunState& s);
@@ -122,8 +132,8 @@ class RunLoop {
   void SetDirection(int sector, double direction_u, int64_t step, RunState& s) const;
   RunState Start(uint64_t direction_bits, double z0);
   void DrawYearFactors();
-  template <bool kTrace>
-  void Step(int64_t step, RunState& s, Engine& weather);
+  template <bool kTrace, bool kReplay>
+  void Step(int64_t step, int64_t slot, RunState& s, Engine& weather);
   void NewDirection(uint64_t bits, int64_t step, RunState& s) const;
   uint32_t DirectionRules(int sector, double direction_u) const;
   void UpdateOutages(int64_t step, RunState& s);
@@ -198,8 +208,9 @@ inline int RunLoop::CellOf(int state, double speed_ms, int64_t step, RunState& s
   s.x_ti = m_.ti_ar1.Advance(s.x_ti, step - s.ti_step, normal_(ti_engine_));
   s.ti_step = step;
   const int row = g.ti_row[w];
-  const double log_ti = row >= 0 ? m_.ti_law.RowSample(row, s.x_ti)
-                                 : m_.ti_law.LogSample(speed_ms, s.x_ti);
+  const double log_ti = !std::isnan(s.measured_log_ti) ? s.measured_log_ti
+                        : row >= 0 ? m_.ti_law.RowSample(row, s.x_ti)
+                                   : m_.ti_law.LogSample(speed_ms, s.x_ti);
   if (trace_ != nullptr) traced_ti_ = std::exp(log_ti), traced_ti_step_ = step;
   const int t = g.TiBin(log_ti);
   return t < 0 ? -1 : g.cell_index[w * ti_bins + t];
@@ -316,12 +327,20 @@ bool RunLoop::TryManualTest(double speed_ms, bool valid, int64_t step, RunState&
 // happens below: its low 32 bits make the wind speed's normal innovation, bits
 // 32-47 decide whether the sector is drawn anew (then SplitMix64 of the draw
 // supplies the new sector and direction), bits 48-63 the quality check.
-template <bool kTrace>
-inline void RunLoop::Step(int64_t step, RunState& s, Engine& weather) {
+// Under replay the speed, direction and TI come from the measured series'
+// slot instead, and the draw serves the quality check alone.
+template <bool kTrace, bool kReplay>
+inline void RunLoop::Step(int64_t step, int64_t slot, RunState& s, Engine& weather) {
   const uint64_t r = weather();
-  if (KeepBits(r) >= m_.keep_threshold) NewDirection(SplitMix64(r), step, s);
-  s.z = m_.wind_ar1.Next(s.z, ZigguratNormal::FromWord(static_cast<uint32_t>(r)));
-  const double speed = s.speed_scale * (*s.transform)(s.z);
+  double speed;
+  if constexpr (kReplay) {
+    if (slot != s.replay_slot) ReplaySlot(slot, step, s);
+    speed = s.replay_speed_ms;
+  } else {
+    if (KeepBits(r) >= m_.keep_threshold) NewDirection(SplitMix64(r), step, s);
+    s.z = m_.wind_ar1.Next(s.z, ZigguratNormal::FromWord(static_cast<uint32_t>(r)));
+    speed = s.speed_scale * (*s.transform)(s.z);
+  }
   s.speed_sum_ms += speed;
 
   // Turbine state with cut-out hysteresis.
@@ -411,18 +430,45 @@ void RunLoop::ApplyState(const CampaignState& state, int64_t start_step, RunStat
     out_->count_at_deadline = out_->count_at_end;  // the deadline has passed
     deadline_passed_ = true;
   }
-  if (!state.has_last_wind) return;
-  const int sectors = static_cast<int>(m_.sector_scale_ms.size());
-  const double shifted =
-      std::fmod(state.last_direction_deg / m_.sector_width_deg + 0.5 + 10.0 * sectors,
-                static_cast<double>(sectors));
-  const int sector = std::min(sectors - 1, static_cast<int>(shifted));
-  SetDirection(sector, shifted - sector, start_step, s);
+  if (!state.has_last_wind || m_.replay) return;
+  SetDirectionDegrees(state.last_direction_deg, start_step, s);
+  const int sector = s.sector;
   const int64_t day = std::max<int64_t>(0, start_step / kStepsPerDay - 1);
   const double scale = m_.sector_scale_ms[sector] *
                        m_.monthly_factors[m_.day_month[day]] *
                        year_factor_[m_.day_year[day]] * m_.hourly_factors[23];
   s.z = NormalScoreOfSpeed(state.last_speed_ms / scale, m_.sector_shape[sector]);
+}
+
+// The sector and the position in it of a direction in degrees.
+void RunLoop::SetDirectionDegrees(double direction_deg, int64_t step, RunState& s) const {
+  const int sectors = static_cast<int>(m_.sector_scale_ms.size());
+  const double shifted =
+      std::fmod(direction_deg / m_.sector_width_deg + 0.5 + 10.0 * sectors,
+                static_cast<double>(sectors));
+  const int sector = std::min(sectors - 1, static_cast<int>(shifted));
+  SetDirection(sector, shifted - sector, step, s);
+}
+
+// Replay: the measured record of `slot` from `step` on.
+void RunLoop::ReplaySlot(int64_t slot, int64_t step, RunState& s) const {
+  const WeatherReplay& r = *m_.replay;
+  s.replay_slot = slot;
+  s.replay_speed_ms = r.speed_ms[slot];
+  s.measured_log_ti = r.log_ti[slot];
+  const float direction = r.direction_deg[slot];
+  if (r.has_direction && direction != s.replay_direction_deg) {
+    s.replay_direction_deg = direction;
+    SetDirectionDegrees(direction, step, s);
+  }
+}
+
+// Replay: the first measured day of the block that starts at simulated `day`,
+// drawn uniformly from the pool of that day of the year.
+int64_t RunLoop::DrawReplayBlock(int64_t day, Engine& e) const {
+  const std::vector<int32_t>& pool = m_.replay->pool[m_.day_of_year[day]];
+  const auto pick = static_cast<size_t>(UniformDouble(e) * pool.size());
+  return pool[std::min(pick, pool.size() - 1)];
 }
 
 void RunLoop::Run(const CampaignState* state) {
@@ -436,17 +482,32 @@ void RunLoop::Run(const CampaignState* state) {
   s.direction_since = s.outages_since = step;
   if (state != nullptr) ApplyState(*state, step, s);
   s.checkpoint = step;
+  const bool replay = m_.replay != nullptr;
   if (trace_ != nullptr) {
-    RunSteps<true>(first_day, step, s, weather);
+    replay ? RunSteps<true, true>(first_day, step, s, weather)
+           : RunSteps<true, false>(first_day, step, s, weather);
   } else {
-    RunSteps<false>(first_day, step, s, weather);
+    replay ? RunSteps<false, true>(first_day, step, s, weather)
+           : RunSteps<false, false>(first_day, step, s, weather);
   }
 }
 
-template <bool kTrace>
+template <bool kTrace, bool kReplay>
 void RunLoop::RunSteps(int64_t first_day, int64_t step, RunState& s, Engine& weather) {
   const int64_t days = static_cast<int64_t>(m_.day_month.size());
+  // Replay: blocks of block_days from the plan's start, each a measured block
+  // drawn from its own stream; slot = the measured record of a step.
+  Engine blocks = MakeRunEngine(seed_ ^ kReplaySalt, run_);
+  const int64_t block_days = kReplay ? m_.replay->options.block_days : 1;
+  const int64_t per_day = kReplay ? m_.replay->records_per_day : 0;
+  int64_t block_start = 0;  // measured day of the current block's first day
   for (int64_t day = first_day; day < days; ++day) {
+    int64_t day_slot = 0;  // first slot of the measured day replayed today
+    if constexpr (kReplay) {
+      if (day == first_day || day % block_days == 0)
+        block_start = DrawReplayBlock(day - day % block_days, blocks);
+      day_slot = (block_start + day % block_days) * per_day;
+    }
     const int month = m_.day_month[day];
     const double day_scale = m_.monthly_factors[month] * year_factor_[m_.day_year[day]];
     for (int hour = 0; hour < 24; ++hour) {
@@ -459,7 +520,9 @@ void RunLoop::RunSteps(int64_t first_day, int64_t step, RunState& s, Engine& wea
           s.checkpoint = NextCheckpoint(step, s.remaining);
           if (s.checkpoint < 0) return Stop(step, s);
         }
-        Step<kTrace>(step, s, weather);
+        const int64_t slot =
+            kReplay ? day_slot + (hour * kStepsPerHour + k) * per_day / kStepsPerDay : 0;
+        Step<kTrace, kReplay>(step, slot, s, weather);
       }
     }
   }
