@@ -22,7 +22,7 @@ std::string WeatherSourceText(const Plan& plan) {
   const WeatherReplay& r = *plan.replay;
   std::string out = "replay of measured series '" + FileName(r.series_file) + "' (" +
                     FormatTimestamp(r.read.first_time_s, false) + " to " +
-                    FormatTimestamp(r.read.last_time_s, false) + ", a record every " +
+                    FormatTimestamp(r.read.last_time_s, false) + ", step " +
                     FormatStep(r.read.step_s) + "): " +
                     (r.options.block_days == 1 ? "whole days" : "whole weeks") +
                     " drawn within " + std::to_string(r.options.season_window_days) +
