@@ -21,12 +21,16 @@ TEST(ReplayCliTest, ForecastSaysItReplayedTheMeasuredSeries) {
   {
     std::ofstream plan(dir / "plan.yaml");
     plan << "name: Replay plan\n"
-            "site_model: " << SourcePath("site-models/coastal-ridge.yaml") << "\n"
+            "site_model: "
+         << SourcePath("site-models/coastal-ridge.yaml")
+         << "\n"
             "campaign: {start: 2027-03-01, deadline: 2027-09-01}\n"
             "turbine: {name: T1, cut_in_ms: 3, rated_ms: 11, cut_out_ms: 25}\n"
             "weather:\n"
             "  source: replay\n"
-            "  series: " << series << "\n"
+            "  series: "
+         << series
+         << "\n"
             "  columns: {time: date, speed: MAL}\n"
             "  units: knots\n"
             "capture_matrix:\n"

@@ -127,7 +127,8 @@ struct BadPlan {
 };
 
 const std::string kPlanFields =
-    "valid fields: name, site_model, campaign, turbine, valid_sectors_deg, layout, "
+    "valid fields: name, site_model, weather, campaign, turbine, valid_sectors_deg, "
+    "layout, "
     "outages, curtailment, manual_tests, quality_reject_fraction, capture_matrix, cost";
 const std::string kTurbineFields =
     "valid fields: name, rated_power_kw, rotor_diameter_m, hub_height_m, cut_in_ms, "

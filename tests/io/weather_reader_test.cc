@@ -37,7 +37,6 @@ std::string IrishPlan() {
                  SourcePath("tests/data/irish-daily-wind/daily_mean_wind_knots.csv"));
 }
 
-
 TEST(WeatherReaderTest, ReplayPlanCarriesTheSeriesAndSaysSo) {
   const Plan plan = ParseTestPlan(IrishPlan());
   ASSERT_NE(plan.replay, nullptr);
@@ -74,14 +73,16 @@ TEST(WeatherReaderTest, MistakesGiveLocatedMessages) {
        "or week"},
       {"units", Replace(irish, "units: knots", "units: kmh"),
        "plan.yaml:13:10: weather.units: 'kmh' is not a unit; expected auto, ms or knots"},
-      {"window", Replace(irish, "units: knots", "units: knots\n  season_window_days: 200"),
+      {"window",
+       Replace(irish, "units: knots", "units: knots\n  season_window_days: 200"),
        "plan.yaml:14:23: weather.season_window_days: 200 is out of range; must be at "
        "least 0 and at most 182 days"},
       {"speed factor", Replace(irish, "units: knots", "units: knots\n  speed_factor: 3"),
        "plan.yaml:14:17: weather.speed_factor: 3 is out of range; must be at least 0.5 "
        "and at most 2"},
       {"no direction, restricted sectors",
-       Replace(irish, "capture_matrix:", "valid_sectors_deg: [[200, 300]]\ncapture_matrix:"),
+       Replace(irish,
+               "capture_matrix:", "valid_sectors_deg: [[200, 300]]\ncapture_matrix:"),
        "plan.yaml:12:11: weather.series: '" +
            SourcePath("tests/data/irish-daily-wind/daily_mean_wind_knots.csv") +
            "' has no direction column, but the plan's valid measurement sectors do not "
@@ -118,16 +119,16 @@ TEST(WeatherReaderTest, ShortSeriesNamesTheUncoveredSeason) {
     out << "date,speed_ms,direction\n";
     for (int i = 0; i < 61; ++i) {  // 1 March to 30 April 2020
       const int month = i < 31 ? 3 : 4, day = i < 31 ? i + 1 : i - 30;
-      out << "2020-0" << month << "-" << (day < 10 ? "0" : "") << day << ","
-          << 5 + i % 7 << "," << (i * 37) % 360 << "\n";
+      out << "2020-0" << month << "-" << (day < 10 ? "0" : "") << day << "," << 5 + i % 7
+          << "," << (i * 37) % 360 << "\n";
     }
   }
-  const std::string text =
-      Replace(IrishPlan(), SourcePath("tests/data/irish-daily-wind/daily_mean_wind_knots.csv"),
-              (dir / "short.csv").string());
-  const std::string message = TestPlanError(
-      Replace(Replace(text, "  columns: {time: date, speed: MAL}\n", ""), "units: knots",
-              "units: ms"));
+  const std::string text = Replace(
+      IrishPlan(), SourcePath("tests/data/irish-daily-wind/daily_mean_wind_knots.csv"),
+      (dir / "short.csv").string());
+  const std::string message =
+      TestPlanError(Replace(Replace(text, "  columns: {time: date, speed: MAL}\n", ""),
+                            "units: knots", "units: ms"));
   // Blocks of 7 days start from 1 March to 24 April (55 days); within 30 days
   // of them lie 30 January to 24 May: 115 days of the year, 250 without.
   EXPECT_EQ(message,

@@ -40,8 +40,8 @@ TEST(ReplayTest, TablesAndSeasonalPoolsFollowTheCalendar) {
   EXPECT_EQ(r.days, 6574);
   EXPECT_FALSE(r.has_direction);
   EXPECT_EQ(r.usable_blocks, 6574);
-  EXPECT_EQ(r.pool[0].size(), 18u);   // 1 January
-  EXPECT_EQ(r.pool[58].size(), 22u);  // 28 February (and the 29ths)
+  EXPECT_EQ(r.pool[0].size(), 18u);    // 1 January
+  EXPECT_EQ(r.pool[58].size(), 22u);   // 28 February (and the 29ths)
   EXPECT_EQ(r.pool[364].size(), 18u);  // 31 December
   EXPECT_TRUE(r.EmptyPoolDays().empty());
   // Speeds are the data's, in m/s (1 kn = 1852/3600 m/s).
@@ -67,16 +67,24 @@ Plan ReplayPlan(const std::string& start, const std::string& deadline, int horiz
   const std::string text =
       "name: Replay test\n"
       "site_model: coastal-ridge.yaml\n"
-      "campaign: {start: " + start + ", deadline: " + deadline +
-      ", horizon_weeks: " + std::to_string(horizon_weeks) + "}\n"
+      "campaign: {start: " +
+      start + ", deadline: " + deadline +
+      ", horizon_weeks: " + std::to_string(horizon_weeks) +
+      "}\n"
       "turbine: {name: T1, cut_in_ms: 3, rated_ms: 11, cut_out_ms: 25}\n"
       "weather:\n"
       "  source: replay\n"
-      "  series: " + irish_wind::SpeedsFile() + "\n"
+      "  series: " +
+      irish_wind::SpeedsFile() +
+      "\n"
       "  columns: {time: date, speed: MAL}\n"
       "  units: knots\n"
-      "  block: " + block + "\n"
-      "  season_window_days: " + std::to_string(window) + "\n"
+      "  block: " +
+      block +
+      "\n"
+      "  season_window_days: " +
+      std::to_string(window) +
+      "\n"
       "capture_matrix:\n"
       "  production:\n"
       "    wind_bins_ms: {from: 4, to: 5, width: 1}\n"

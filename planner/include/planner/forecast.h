@@ -25,6 +25,9 @@ struct CellForecast {
   std::optional<double> weeks_to_full_p50;
   std::optional<double> weeks_to_full_p90;
   double p_last_to_fill = 0;  // share of all runs in which it filled last
+  // Share of all runs in which the cell had not reached its minimum when the
+  // run stopped (for a required cell: runs it held up to the horizon).
+  double p_not_full_at_end = 0;
 
   // What relaxing this cell buys, from the same runs: weeks saved at P50 /
   // P80 of completion if the cell were optional, or if its minimum were

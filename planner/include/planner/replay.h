@@ -23,9 +23,9 @@
 namespace planner {
 
 struct ReplayOptions {
-  int block_days = 7;          // 1 (day) or 7 (week)
+  int block_days = 7;           // 1 (day) or 7 (week)
   int season_window_days = 30;  // 0 to 182
-  double speed_factor = 1.0;   // multiplies every measured speed (e.g. to hub height)
+  double speed_factor = 1.0;    // multiplies every measured speed (e.g. to hub height)
   // A measured block is usable when at least this share of its records is
   // present; missing records inside it repeat the last one before them.
   double min_coverage = 0.9;
@@ -43,8 +43,8 @@ struct WeatherReplay {
   // plan must not depend on the direction (full-circle valid sector, no
   // curtailment by direction).
   bool has_direction = true;
-  int64_t days = 0;         // measured days covered (first to last record)
-  int64_t first_day = 0;    // days since 1970-01-01 of the first record's day
+  int64_t days = 0;       // measured days covered (first to last record)
+  int64_t first_day = 0;  // days since 1970-01-01 of the first record's day
   // Per record slot (days x records_per_day): speed in m/s (speed_factor
   // applied), direction in degrees, ln TI (NaN where the series has no
   // usable standard deviation or the speed is below 0.5 m/s), and whether the

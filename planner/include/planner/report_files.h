@@ -13,11 +13,22 @@
 
 namespace planner {
 
+struct ProgressSummary;
+struct StoredProgress;
+
+// The progress section of a report (fillcast progress --report).
+struct ProgressHtml {
+  const ProgressSummary* summary = nullptr;  // required
+  std::vector<StoredProgress> history;       // stored forecasts, for the chart
+  std::string log_path;
+};
+
 struct HtmlReportInput {
   const Plan* plan = nullptr;                 // required
   const ForecastSummary* forecast = nullptr;  // required
   std::vector<StartSweepRow> start_sweep;     // optional section
   const Comparison* comparison = nullptr;     // optional section
+  const ProgressHtml* progress = nullptr;     // optional section (progress)
   ReportContext context;
   std::string command_line;  // how the report was made (inputs and seed)
 };

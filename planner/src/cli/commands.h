@@ -20,10 +20,15 @@ CommandAction AddCompareCommand(CLI::App& app);
 CommandAction AddStartSweepCommand(CLI::App& app);
 CommandAction AddSectorsCommand(CLI::App& app);
 CommandAction AddFitSiteCommand(CLI::App& app);
+CommandAction AddLogCommand(CLI::App& app);
+CommandAction AddProgressCommand(CLI::App& app);
 
 // Exit codes.
 inline constexpr int kExitOk = 0;
 inline constexpr int kExitInputError = 2;
+// log add: conflicting duplicate records were reported and not added (the
+// other records were).
+inline constexpr int kExitConflicts = 3;
 inline constexpr int kExitInternalError = 70;
 
 }  // namespace planner

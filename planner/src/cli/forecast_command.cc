@@ -13,6 +13,7 @@
 #include "planner/forecast_report.h"
 #include "planner/monte_carlo.h"
 #include "planner/plan_reader.h"
+#include "planner/reachability.h"
 #include "planner/report_files.h"
 #include "planner/simulation.h"
 
@@ -61,9 +62,23 @@ std::string ReproducingCommand(const ForecastArgs& args) {
          (args.run.threads > 0 ? " --threads " + std::to_string(args.run.threads) : "");
 }
 
+// Says before the simulation starts which cells the plan rules out (the
+// reports repeat it), so that a long run to the horizon is no surprise.
+void WarnUnreachable(const Plan& plan) {
+  const Reachability r = FindUnreachableCells(plan);
+  if (r.required_unreachable == 0) return;
+  std::cerr << "warning: " << plan.source_file << ": " << r.required_unreachable
+            << (r.required_unreachable == 1 ? " required cell" : " required cells")
+            << " can never fill:\n";
+  for (const UnreachableCell& u : r.cells) {
+    if (u.required) std::cerr << "  " << u.reason << "\n";
+  }
+  std::cerr << "  " << UnreachableAdvice(r) << "\n";
+}
+
 void WriteReportFiles(const ForecastArgs& args, const Plan& plan,
                       const ForecastSummary& summary, const ReportContext& ctx) {
-  const std::vector<std::string> inputs = {plan.source_file, plan.site_file};
+  const std::vector<std::string> inputs = PlanInputFiles(plan);
   if (!args.report_path.empty()) {
     HtmlReportInput in;
     in.plan = &plan;
@@ -95,6 +110,7 @@ int RunForecast(const ForecastArgs& args) {
                      " is invalid; expected a share above 0 and below 1 (0.8 = each "
                      "minimum lowered by 20 %)");
   }
+  WarnUnreachable(plan);
   SimulationOptions sim_options;
   sim_options.relaxed_share = args.relaxed_share;
   const Simulator sim(plan, sim_options);
@@ -131,7 +147,7 @@ int RunForecast(const ForecastArgs& args) {
   ctx.thin_cell_rows = args.thin_rows;
   if (!args.json_path.empty()) {
     WriteOutputFile(args.json_path, FormatForecastJson(plan, summary, ctx),
-                    args.run.force, {plan.source_file, plan.site_file}, "--json");
+                    args.run.force, PlanInputFiles(plan), "--json");
   }
   WriteReportFiles(args, plan, summary, ctx);
   const bool wrote_file = !args.json_path.empty() || !args.report_path.empty() ||

@@ -25,7 +25,8 @@ int main(int argc, char** argv) {
       "file formats and methods.");
   std::vector<CommandAction> actions = {AddForecastCommand(app), AddCompareCommand(app),
                                         AddStartSweepCommand(app), AddSectorsCommand(app),
-                                        AddFitSiteCommand(app)};
+                                        AddFitSiteCommand(app), AddLogCommand(app),
+                                        AddProgressCommand(app)};
   std::string names;
   bool known = false;
   for (const CLI::App* sub : app.get_subcommands({})) {

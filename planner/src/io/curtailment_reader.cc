@@ -9,6 +9,9 @@ namespace planner {
 namespace io {
 namespace {
 
+// The simulation keeps the rules in force as bits of a 32-bit mask.
+constexpr std::size_t kMaxRules = 32;
+
 const std::vector<std::string> kRuleFields = {"name",    "months",         "hours",
                                               "wind_ms", "directions_deg", "action"};
 
@@ -66,6 +69,10 @@ CurtailmentRule ReadRule(const Field& f, NameSet* names) {
 std::vector<CurtailmentRule> ReadCurtailment(const Field& f) {
   const std::vector<Field> items = AsList(f);
   if (items.empty()) Fail(f, "is empty; give at least one rule, or leave the field out");
+  if (items.size() > kMaxRules) {
+    Fail(f, std::to_string(items.size()) + " rules given; at most " +
+                std::to_string(kMaxRules) + " are allowed");
+  }
   NameSet names("curtailment rule");
   std::vector<CurtailmentRule> rules;
   for (const Field& item : items) rules.push_back(ReadRule(item, &names));

@@ -15,8 +15,8 @@ namespace fs = std::filesystem;
 
 const std::vector<std::string> kSourceFields = {"source"};
 const std::vector<std::string> kReplayFields = {
-    "source", "series",         "columns",           "units",
-    "block",  "season_window_days", "speed_factor"};
+    "source",      "series", "columns", "units", "block", "season_window_days",
+    "speed_factor"};
 const std::vector<std::string> kWeatherFields = kReplayFields;
 const std::vector<std::string> kColumnFields = {"time", "speed", "std", "direction"};
 
@@ -42,8 +42,9 @@ int ReadBlockDays(const FieldMap& m) {
 std::string ResolveSeries(const Field& f, const std::string& base_dir) {
   const std::string given = AsText(f);
   if (given.empty()) Fail(f, "is empty; give the path of a measured-data CSV file");
-  const fs::path resolved =
-      base_dir.empty() ? fs::path(given) : (fs::path(base_dir) / given).lexically_normal();
+  const fs::path resolved = base_dir.empty()
+                                ? fs::path(given)
+                                : (fs::path(base_dir) / given).lexically_normal();
   std::error_code ec;
   if (!fs::is_regular_file(resolved, ec)) {
     Fail(f, "'" + given + "' is not a file (looked for '" + resolved.string() +
@@ -56,16 +57,17 @@ std::string ResolveSeries(const Field& f, const std::string& base_dir) {
 std::string DayList(const std::vector<std::string>& days) {
   std::string out;
   for (size_t i = 0; i < days.size() && i < 3; ++i) out += (i ? ", " : "") + days[i];
-  if (days.size() > 3) out += ", ... (" + std::to_string(days.size()) + " days of the year)";
+  if (days.size() > 3)
+    out += ", ... (" + std::to_string(days.size()) + " days of the year)";
   return out;
 }
 
 // A series without directions can stand only for a plan in which nothing
 // depends on the direction.
 void RequireNoDirection(const Plan& plan, const Field& series) {
-  const bool full_circle =
-      plan.valid_sectors.size() == 1 && plan.valid_sectors[0].from_deg == 0.0 &&
-      plan.valid_sectors[0].to_deg == 360.0;
+  const bool full_circle = plan.valid_sectors.size() == 1 &&
+                           plan.valid_sectors[0].from_deg == 0.0 &&
+                           plan.valid_sectors[0].to_deg == 360.0;
   bool by_direction = false;
   for (const CurtailmentRule& c : plan.curtailment)
     by_direction = by_direction || !c.directions.empty();
@@ -104,12 +106,11 @@ void ReadWeather(const Field& f, const std::string& base_dir, Plan* plan) {
   options.block_days = ReadBlockDays(m);
   options.season_window_days =
       ReadWholeNumber(m, "season_window_days", Interval("[]", 0, 182, "days"), 30);
-  options.speed_factor =
-      ReadNumber(m, "speed_factor", Interval("[]", 0.5, 2.0), 1.0);
+  options.speed_factor = ReadNumber(m, "speed_factor", Interval("[]", 0.5, 2.0), 1.0);
   const Field series_field = m.Get("series");
   const std::string path = ResolveSeries(series_field, base_dir);
-  auto built = std::make_shared<WeatherReplay>(
-      BuildWeatherReplay(LoadMetCsv(path, csv), options));
+  auto built =
+      std::make_shared<WeatherReplay>(BuildWeatherReplay(LoadMetCsv(path, csv), options));
   built->series_file = path;
   if (!built->has_direction) RequireNoDirection(*plan, series_field);
   const std::vector<std::string> empty = built->EmptyPoolDays();

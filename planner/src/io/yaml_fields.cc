@@ -1,5 +1,7 @@
 #include "io/yaml_fields.h"
 
+#include <yaml-cpp/eventhandler.h>
+
 #include <algorithm>
 #include <cctype>
 #include <charconv>
@@ -91,6 +93,99 @@ bool ParseDecimal(const std::string& text, double* x) {
   return result.ec == std::errc() && result.ptr == last && std::isfinite(*x);
 }
 
+// What ParseDocument needs to know of each YAML document in a text: where it
+// starts and where its first value is, if it has one (a document holding
+// nothing, as after a trailing "---", has only a null).
+class DocumentScan : public YAML::EventHandler {
+ public:
+  YAML::Mark start, value;
+  bool has_value = false;
+
+  void OnDocumentStart(const YAML::Mark& mark) override {
+    start = value = mark;
+    has_value = false;
+  }
+  void OnDocumentEnd() override {}
+  void OnNull(const YAML::Mark&, YAML::anchor_t) override {}
+  void OnAlias(const YAML::Mark& mark, YAML::anchor_t) override { Value(mark); }
+  void OnScalar(const YAML::Mark& mark, const std::string&, YAML::anchor_t,
+                const std::string&) override {
+    Value(mark);
+  }
+  void OnSequenceStart(const YAML::Mark& mark, const std::string&, YAML::anchor_t,
+                       YAML::EmitterStyle::value) override {
+    Value(mark);
+  }
+  void OnSequenceEnd() override {}
+  void OnMapStart(const YAML::Mark& mark, const std::string&, YAML::anchor_t,
+                  YAML::EmitterStyle::value) override {
+    Value(mark);
+  }
+  void OnMapEnd() override {}
+
+ private:
+  void Value(const YAML::Mark& mark) {
+    if (!has_value) value = mark;
+    has_value = true;
+  }
+};
+
+// The character at a mark, for a message: "','" or "byte 0x1b".
+std::string CharacterAt(const std::string& text, const YAML::Mark& mark) {
+  if (mark.pos < 0 || static_cast<std::size_t>(mark.pos) >= text.size()) return "the end";
+  const unsigned char c = static_cast<unsigned char>(text[mark.pos]);
+  if (c >= 0x20 && c < 0x7f) return "'" + std::string(1, static_cast<char>(c)) + "'";
+  char buffer[16];
+  std::snprintf(buffer, sizeof buffer, "byte 0x%02x", c);
+  return buffer;
+}
+
+// " (line N indents with a tab; YAML indents with spaces only)" for the first
+// line whose indentation holds a tab, "" if none: a tab is the usual cause of
+// the YAML library's less telling messages.
+std::string TabHint(const std::string& text) {
+  int line = 1;
+  bool indent = true;
+  for (const char c : text) {
+    if (c == '\n') {
+      ++line;
+      indent = true;
+    } else if (indent && c == '\t') {
+      return " (line " + std::to_string(line) +
+             " indents with a tab; YAML indents with spaces only)";
+    } else if (c != ' ') {
+      indent = false;
+    }
+  }
+  return "";
+}
+
+// Checks that `text` holds at most one YAML document with a value. The
+// YAML library's own loop over documents never ends on some invalid input
+// (a stray ',' outside [ ] and { } yields empty documents without moving on),
+// so the documents are walked here, and a document that starts where the
+// one before started is reported as the syntax error it is.
+void CheckSingleDocument(const std::string& text, const std::string& file_name) {
+  std::istringstream in(text);
+  YAML::Parser parser(in);
+  DocumentScan scan;
+  int documents = 0;
+  int previous_start = -1;
+  while (parser.HandleNextDocument(scan)) {
+    if (!scan.has_value && scan.start.pos == previous_start) {
+      ThrowAt(LocationOf(scan.start, file_name), "",
+              "invalid YAML: unexpected " + CharacterAt(text, scan.start) +
+                  "; a value cannot start here");
+    }
+    if (documents > 0 && scan.has_value) {
+      ThrowAt(LocationOf(scan.value, file_name), "",
+              "a second YAML document starts here; a file holds exactly one");
+    }
+    previous_start = scan.start.pos;
+    ++documents;
+  }
+}
+
 std::string NumberTypeError(const Field& f) {
   return "expected a number, got " + Describe(f.node);
 }
@@ -113,25 +208,31 @@ std::string ReadInputFile(const std::string& path, const std::string& what) {
   }
   std::ifstream in(path, std::ios::binary);
   if (!in) ThrowAt(where, "", "cannot open " + what + " file: not readable");
-  std::ostringstream text;
-  text << in.rdbuf();
-  return text.str();
+  // Read at most one chunk past the limit: a device or pipe that never ends
+  // (such as /dev/zero) has no size to check beforehand.
+  std::string text;
+  char chunk[1 << 16];
+  while (text.size() <= kMaxInputBytes && in.read(chunk, sizeof chunk).gcount() > 0) {
+    text.append(chunk, static_cast<std::size_t>(in.gcount()));
+  }
+  if (text.size() > kMaxInputBytes) {
+    ThrowAt(
+        where, "",
+        "is more than 16 MiB; a " + what + " file is a small YAML text (at most 16 MiB)");
+  }
+  return text;
 }
 
 Field ParseDocument(const std::string& text, const std::string& file_name) {
-  std::vector<YAML::Node> documents;
+  YAML::Node document;
   try {
-    documents = YAML::LoadAll(text);
+    CheckSingleDocument(text, file_name);  // a trailing "---" is harmless
+    document = YAML::Load(text);
   } catch (const YAML::Exception& e) {
-    ThrowAt(LocationOf(e.mark, file_name), "", "invalid YAML: " + e.msg);
+    ThrowAt(LocationOf(e.mark, file_name), "", "invalid YAML: " + e.msg + TabHint(text));
   }
   const SourceLocation file_only{file_name, 0, 0};
-  for (std::size_t i = 1; i < documents.size(); ++i) {
-    if (documents[i].IsNull()) continue;  // a trailing "---" is harmless
-    ThrowAt(NodeLocation(documents[i], file_only), "",
-            "a second YAML document starts here; a file holds exactly one");
-  }
-  Field root{documents.empty() ? YAML::Node() : documents[0], "", file_only};
+  Field root{document, "", file_only};
   root.where = NodeLocation(root.node, file_only);
   return root;
 }

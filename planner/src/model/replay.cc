@@ -15,7 +15,9 @@ const char* const kMonths[] = {"Jan", "Feb", "Mar", "Apr", "May", "Jun",
                                "Jul", "Aug", "Sep", "Oct", "Nov", "Dec"};
 constexpr int kMonthStart[] = {0, 31, 59, 90, 120, 151, 181, 212, 243, 273, 304, 334};
 
-int64_t FloorDiv(int64_t a, int64_t b) { return a / b - ((a % b != 0) && ((a < 0) != (b < 0))); }
+int64_t FloorDiv(int64_t a, int64_t b) {
+  return a / b - ((a % b != 0) && ((a < 0) != (b < 0)));
+}
 
 // Circular distance between two days of a 365-day year.
 int YearDistance(int a, int b) {
@@ -53,8 +55,9 @@ WeatherReplay BuildWeatherReplay(const MetSeries& series, const ReplayOptions& o
     throw InputError(file + ": replay needs a measured series of at least two records");
   }
   if (step_s > kSecondsPerDay || kSecondsPerDay % step_s != 0) {
-    throw InputError(file + ": replay needs a step that divides a day (10 minutes, "
-                            "hourly, daily...); the series' step is " +
+    throw InputError(file +
+                     ": replay needs a step that divides a day (10 minutes, "
+                     "hourly, daily...); the series' step is " +
                      std::to_string(step_s) + " s");
   }
   r.records_per_day = static_cast<int>(kSecondsPerDay / step_s);

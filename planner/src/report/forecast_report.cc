@@ -8,6 +8,8 @@
 #include <sstream>
 
 #include "planner/decision.h"
+#include "planner/reachability.h"
+#include "planner/weather_source.h"
 #include "report/cautions.h"
 #include "report/report_numbers.h"
 #include "report/text_format.h"
@@ -48,7 +50,72 @@ std::vector<std::string> ResultNotes(const ForecastSummary& s) {
   return notes;
 }
 
+// Required cells that were short of their minimum when runs stopped at the
+// horizon, most often short first; at most this many are named.
+constexpr size_t kMaxHeldUpCells = 5;
+
+std::vector<const CellForecast*> HeldUpCells(const ForecastSummary& s) {
+  std::vector<const CellForecast*> cells;
+  for (const CellForecast& c : s.cells) {
+    if (!c.cell.optional && c.p_not_full_at_end > 0.0) cells.push_back(&c);
+  }
+  std::stable_sort(cells.begin(), cells.end(),
+                   [](const CellForecast* a, const CellForecast* b) {
+                     return a->p_not_full_at_end > b->p_not_full_at_end;
+                   });
+  return cells;
+}
+
+long RunCount(double share, long runs) {
+  return std::lround(share * static_cast<double>(runs));
+}
+
+// "No run completed within the 156-week horizon; ..." naming the cells that
+// held the incomplete runs up ("" when every run completed).
+std::string HeldUpSentence(const Plan& plan, const ForecastSummary& s) {
+  const long incomplete = RunCount(s.p_incomplete_at_horizon, s.runs);
+  if (s.runs <= 0 || incomplete == 0) return "";
+  const bool none_done = incomplete == s.runs;
+  std::string out = none_done
+                        ? StringPrintf("No run completed within the %s-week horizon",
+                                       Compact(s.horizon_weeks).c_str())
+                        : StringPrintf(
+                              "%ld of %ld runs did not complete within the %s-week "
+                              "horizon",
+                              incomplete, s.runs, Compact(s.horizon_weeks).c_str());
+  const std::vector<const CellForecast*> cells = HeldUpCells(s);
+  std::string list;
+  for (size_t i = 0; i < cells.size() && i < kMaxHeldUpCells; ++i) {
+    const long n = RunCount(cells[i]->p_not_full_at_end, s.runs);
+    const std::string in_runs =
+        n >= incomplete ? (none_done ? "in every run" : "in every one of them")
+                        : StringPrintf("in %ld of them", n);
+    list += (list.empty() ? "" : "; ") + CellLabel(plan.matrix, cells[i]->cell) + " (" +
+            in_runs + ")";
+  }
+  if (cells.size() > kMaxHeldUpCells) {
+    list += StringPrintf("; and %zu more", cells.size() - kMaxHeldUpCells);
+  }
+  return out + ". Required cells still short of their minimum at the horizon: " + list +
+         ".";
+}
+
 // ---- text ------------------------------------------------------------------
+
+// Cells the plan itself rules out, before any simulation (planner/reachability.h).
+std::string TextUnreachable(const Plan& plan) {
+  const Reachability r = FindUnreachableCells(plan);
+  if (r.cells.empty()) return "";
+  std::string out =
+      "\nCells that can never fill (found in the plan, before simulating)\n";
+  for (const UnreachableCell& u : r.cells) {
+    out += Wrap("  - ", u.reason + (u.required ? ""
+                                               : " It is optional, so it does not hold "
+                                                 "up completion."));
+  }
+  if (!r.CanComplete()) out += Wrap("  ", UnreachableAdvice(r));
+  return out;
+}
 
 std::string TextHeader(const Plan& plan, const ForecastSummary& s,
                        const ReportContext& ctx) {
@@ -56,6 +123,7 @@ std::string TextHeader(const Plan& plan, const ForecastSummary& s,
       StringPrintf("fillcast %s - campaign forecast\n", ctx.tool_version.c_str());
   out += Wrap("  Plan:      ", plan.name);
   out += Wrap("  Site:      ", plan.site.name);
+  out += Wrap("  Weather:   ", WeatherSourceText(plan));
   if (!plan.turbine.name.empty()) out += Wrap("  Turbine:   ", plan.turbine.name);
   out += StringPrintf("  Start:     %s\n", FormatDate(plan.start).c_str());
   out += StringPrintf("  Deadline:  %s (%.1f weeks after the start)\n",
@@ -108,6 +176,8 @@ std::string TextCompletion(const Plan& plan, const ForecastSummary& s) {
       "Not complete within the horizon (" + Compact(s.horizon_weeks) + " weeks):";
   out += StringPrintf("  %-46s %8s of runs\n", in_horizon.c_str(),
                       Percent(s.p_incomplete_at_horizon).c_str());
+  const std::string held_up = HeldUpSentence(plan, s);
+  if (!held_up.empty()) out += "\n" + Wrap("  ", held_up);
   return out;
 }
 
@@ -231,6 +301,7 @@ Json CellJson(const CaptureMatrix& m, const CellForecast& c) {
   j["weeks_to_full"] = {{"p50", OptionalNumber(c.weeks_to_full_p50)},
                         {"p90", OptionalNumber(c.weeks_to_full_p90)}};
   j["p_last_to_fill"] = c.p_last_to_fill;
+  j["p_not_full_at_end"] = c.p_not_full_at_end;
   j["saved_weeks_if_optional"] = {{"p50", OptionalNumber(c.saved_p50_if_optional)},
                                   {"p80", OptionalNumber(c.saved_p80_if_optional)}};
   j["saved_weeks_if_relaxed"] = {{"p50", OptionalNumber(c.saved_p50_if_relaxed)},
@@ -268,6 +339,7 @@ Json DatesJson(const Plan& plan, const ForecastSummary& s) {
 std::string FormatForecastText(const Plan& plan, const ForecastSummary& s,
                                const ReportContext& ctx) {
   std::string out = TextHeader(plan, s, ctx);
+  out += TextUnreachable(plan);
   out += TextCompletion(plan, s);
   out += TextThinCells(plan, s, ctx);
   out += TextBottleneckAndDiagnostics(plan, s);
@@ -291,6 +363,7 @@ std::string FormatForecastJson(const Plan& plan, const ForecastSummary& s,
                {"start", FormatDate(plan.start)},
                {"deadline", FormatDate(plan.deadline)},
                {"horizon_weeks", s.horizon_weeks}};
+  j["weather"] = WeatherSourceJson(plan);
   j["runs"] = s.runs;
   if (ctx.precision_used) {
     j["precision"] = {{"quantile", ctx.precision_quantile},
@@ -315,6 +388,16 @@ std::string FormatForecastJson(const Plan& plan, const ForecastSummary& s,
     j["bottleneck"] = nullptr;
   }
   j["bottleneck_sentence"] = BottleneckSentence(plan.matrix, s);
+  j["unreachable_cells"] = Json::array();
+  for (const UnreachableCell& u : FindUnreachableCells(plan).cells) {
+    j["unreachable_cells"].push_back(
+        {{"cell", u.cell},
+         {"label",
+          CellLabel(plan.matrix, plan.matrix.cells[static_cast<size_t>(u.cell)])},
+         {"required", u.required},
+         {"reason", u.reason}});
+  }
+  j["held_up_sentence"] = HeldUpSentence(plan, s);
   j["relaxed_share"] = s.relaxed_share;
   j["fill_curve"] = Json::array();
   for (const FillPoint& p : s.fill_curve) {

@@ -5,11 +5,14 @@
 #include <cmath>
 #include <stdexcept>
 
+#include "planner/reachability.h"
 #include "planner/report_files.h"
+#include "planner/weather_source.h"
 #include "report/cautions.h"
 #include "report/html_escape.h"
 #include "report/html_style.h"
 #include "report/matrix_grid.h"
+#include "report/progress_html.h"
 #include "report/report_charts.h"
 #include "report/report_numbers.h"
 
@@ -139,6 +142,12 @@ std::string SummarySection(const HtmlReportInput& in) {
                         s.horizon_weeks) +
            "</li>\n";
   }
+  const Reachability reach = FindUnreachableCells(plan);
+  for (const UnreachableCell& u : reach.cells) {
+    out += "<li><b>Can never fill" + std::string(u.required ? "" : " (optional)") +
+           ":</b> " + Esc(u.reason) + "</li>\n";
+  }
+  if (!reach.CanComplete()) out += "<li>" + Esc(UnreachableAdvice(reach)) + "</li>\n";
   out +=
       "</ul>\n<p class=\"note\">The 95 % intervals show the Monte-Carlo uncertainty "
       "only (more runs narrow them), not whether the site model is right. This is an "
@@ -433,6 +442,7 @@ std::string InputsSection(const HtmlReportInput& in) {
   out += row("Site model", Esc(plan.site.name));
   if (!plan.site_file.empty())
     out += row("Site model file", "<code>" + Esc(plan.site_file) + "</code>");
+  out += row("Weather", Esc(WeatherSourceText(plan)));
   if (!plan.turbine.name.empty()) out += row("Turbine", Esc(plan.turbine.name));
   out += row("Cut-in / cut-out / restart",
              StringPrintf("%g / %g / %g m/s", plan.turbine.cut_in_ms,
@@ -473,6 +483,7 @@ std::string FormatHtmlReport(const HtmlReportInput& in) {
   out += PageHeader(in);
   out += "<main>\n";
   out += SummarySection(in);
+  out += ProgressHtmlSection(in);
   out += CompletionSection(in);
   out += MatrixSection(in);
   out += FillSection(in);

@@ -23,8 +23,8 @@ std::string WeatherSourceText(const Plan& plan) {
   std::string out = "replay of measured series '" + FileName(r.series_file) + "' (" +
                     FormatTimestamp(r.read.first_time_s, false) + " to " +
                     FormatTimestamp(r.read.last_time_s, false) + ", step " +
-                    FormatStep(r.read.step_s) + "): " +
-                    (r.options.block_days == 1 ? "whole days" : "whole weeks") +
+                    FormatStep(r.read.step_s) +
+                    "): " + (r.options.block_days == 1 ? "whole days" : "whole weeks") +
                     " drawn within " + std::to_string(r.options.season_window_days) +
                     " days of the calendar date";
   if (r.options.speed_factor != 1.0)

@@ -80,7 +80,7 @@ CellForecast SummarizeCell(const CaptureMatrix& matrix, int index, int64_t deadl
   std::vector<double> counts, full_weeks;
   counts.reserve(runs.size());
   full_weeks.reserve(runs.size());
-  long full_by_deadline = 0, last = 0;
+  long full_by_deadline = 0, last = 0, not_full = 0;
   double sum = 0.0;
   for (const RunResult& r : runs) {
     // Runs shorter than the matrix (should not happen) count as empty cells.
@@ -91,6 +91,7 @@ CellForecast SummarizeCell(const CaptureMatrix& matrix, int index, int64_t deadl
     full_weeks.push_back(WeeksOrInf(full));
     if (ByDeadline(full, deadline_steps)) ++full_by_deadline;
     if (r.last_cell == index) ++last;
+    if (full < 0) ++not_full;
   }
   std::sort(counts.begin(), counts.end());
   std::sort(full_weeks.begin(), full_weeks.end());
@@ -105,6 +106,7 @@ CellForecast SummarizeCell(const CaptureMatrix& matrix, int index, int64_t deadl
     c.weeks_to_full_p90 = EstimateQuantile(full_weeks, 0.90).value;
   }
   c.p_last_to_fill = Share(last, n);
+  c.p_not_full_at_end = Share(not_full, n);
   return c;
 }
 

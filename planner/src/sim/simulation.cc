@@ -67,7 +67,7 @@ struct RunState {
   double replay_speed_ms = 0;
   float replay_direction_deg = -1;
   double measured_log_ti = NAN;
-  double x_ti = 0;               // latent TI normal at step ti_step
+  double x_ti = 0;  // latent TI normal at step ti_step
   int64_t ti_step = 0;
   bool high_wind_stop = false;
   bool producing = false;  // in the previous step
@@ -209,7 +209,7 @@ inline int RunLoop::CellOf(int state, double speed_ms, int64_t step, RunState& s
   s.ti_step = step;
   const int row = g.ti_row[w];
   const double log_ti = !std::isnan(s.measured_log_ti) ? s.measured_log_ti
-                        : row >= 0 ? m_.ti_law.RowSample(row, s.x_ti)
+                        : row >= 0                     ? m_.ti_law.RowSample(row, s.x_ti)
                                    : m_.ti_law.LogSample(speed_ms, s.x_ti);
   if (trace_ != nullptr) traced_ti_ = std::exp(log_ti), traced_ti_step_ = step;
   const int t = g.TiBin(log_ti);
@@ -231,9 +231,10 @@ uint32_t RunLoop::DirectionRules(int sector, double direction_u) const {
 
 // A new draw of the sector (even of the same one) is a new direction in it.
 // Both uniforms come from one 64-bit word.
-inline void RunLoop::NewDirection(uint64_t bits, int64_t step, RunState& s) const {
-  SetDirection(m_.sector_chain.frequencies.Draw(HighUniform(bits)), LowUniform(bits), step,
-               s);
+[[gnu::noinline, gnu::cold]] void RunLoop::NewDirection(uint64_t bits, int64_t step,
+                                                        RunState& s) const {
+  SetDirection(m_.sector_chain.frequencies.Draw(HighUniform(bits)), LowUniform(bits),
+               step, s);
 }
 
 // The direction from `step` on.
@@ -253,7 +254,7 @@ inline void RunLoop::SetDirection(int sector, double direction_u, int64_t step,
 }
 
 // The outage states from `step` on.
-void RunLoop::UpdateOutages(int64_t step, RunState& s) {
+[[gnu::noinline, gnu::cold]] void RunLoop::UpdateOutages(int64_t step, RunState& s) {
   if (s.turbine_up) s.turbine_up_steps += step - s.outages_since;
   if (s.daq_up) s.daq_up_steps += step - s.outages_since;
   s.outages_since = step;
@@ -291,8 +292,9 @@ inline int RunLoop::CountEvent(int type, double speed_ms, int64_t step, RunState
 
 // Production started or ended. A start is a start-up whatever stopped the
 // turbine before; an end is a normal stop unless a fault took the turbine out.
-void RunLoop::OnTransition(bool producing, double speed_ms, bool valid, int64_t step,
-                           RunState& s) {
+[[gnu::noinline, gnu::cold]] void RunLoop::OnTransition(bool producing, double speed_ms,
+                                                        bool valid, int64_t step,
+                                                        RunState& s) {
   if (step != first_step_) {
     const int type =
         producing ? m_.start_up_event : (s.turbine_up ? m_.normal_stop_event : -1);
@@ -305,7 +307,8 @@ void RunLoop::OnTransition(bool producing, double speed_ms, bool valid, int64_t 
 // The crew is on site, the turbine produces normally and the record would be
 // valid but for the quality check: do the first test whose wind window holds,
 // whose interval has passed and whose cell at this speed is not yet full.
-bool RunLoop::TryManualTest(double speed_ms, bool valid, int64_t step, RunState& s) {
+[[gnu::noinline, gnu::cold]] bool RunLoop::TryManualTest(double speed_ms, bool valid,
+                                                         int64_t step, RunState& s) {
   for (size_t t = 0; t < m_.manual_tests.size(); ++t) {
     const CompiledManualTest& test = m_.manual_tests[t];
     if (speed_ms < test.wind_lo_ms || speed_ms >= test.wind_hi_ms) continue;
@@ -358,13 +361,15 @@ inline void RunLoop::Step(int64_t step, int64_t slot, RunState& s, Engine& weath
   const bool producing =
       s.turbine_up && !s.high_wind_stop && speed >= m_.cut_in_ms && curtail != kStop;
   const bool quality_ok = QualityBits(r) >= m_.reject_threshold;
-  if (producing != s.producing)
-    OnTransition(producing, speed, s.recordable && quality_ok, step, s);
+  const bool transition = producing != s.producing;
+  if (transition) OnTransition(producing, speed, s.recordable && quality_ok, step, s);
   const int state = producing ? (curtail == kReduce ? 2 : 0) : 1;
   int cell = -1;
   if (s.recordable) {
-    if (s.tests_open > 0 && s.crew_here && producing && curtail == kNotCurtailed &&
-        TryManualTest(speed, quality_ok, step, s)) {
+    // (Not in the record in which production started: a test waits for the
+    // next one, so that a record carries at most one event.)
+    if (s.tests_open > 0 && s.crew_here && producing && !transition &&
+        curtail == kNotCurtailed && TryManualTest(speed, quality_ok, step, s)) {
       // A test record is a transient, not a production record.
       if constexpr (kTrace) Trace(step, speed, state, quality_ok, true, -1, s);
       return;
@@ -532,7 +537,8 @@ void RunLoop::RunSteps(int64_t first_day, int64_t step, RunState& s, Engine& wea
 // The next step the loop must stop at, or -1 when the run is over. Takes the
 // deadline snapshot on the way. (RunState stays out of its signature so that
 // the compiler can keep it in registers.)
-int64_t RunLoop::NextCheckpoint(int64_t step, int remaining) {
+[[gnu::noinline, gnu::cold]] int64_t RunLoop::NextCheckpoint(int64_t step,
+                                                             int remaining) {
   if (step == m_.deadline_steps) {
     out_->count_at_deadline = out_->count_at_end;
     deadline_passed_ = true;
@@ -544,7 +550,8 @@ int64_t RunLoop::NextCheckpoint(int64_t step, int remaining) {
 
 void RunLoop::Stop(int64_t steps, const RunState& s) {
   out_->simulated_steps = steps;
-  out_->turbine_up_steps = s.turbine_up_steps + (s.turbine_up ? steps - s.outages_since : 0);
+  out_->turbine_up_steps =
+      s.turbine_up_steps + (s.turbine_up ? steps - s.outages_since : 0);
   out_->daq_up_steps = s.daq_up_steps + (s.daq_up ? steps - s.outages_since : 0);
   out_->valid_sector_steps =
       s.valid_sector_steps + (s.sector_ok ? steps - s.direction_since : 0);
