@@ -4,6 +4,7 @@
 #include <nlohmann/json.hpp>
 
 #include "io/met_csv_reader.h"
+#include "planner/weather_source.h"
 #include "report/cautions.h"
 #include "report/report_numbers.h"
 #include "report/text_format.h"
@@ -80,6 +81,7 @@ std::string Header(const Plan& plan, const ProgressSummary& s,
       StringPrintf("fillcast %s - campaign progress\n", ctx.tool_version.c_str());
   out += Wrap("  Plan:        ", plan.name);
   out += Wrap("  Site:        ", plan.site.name);
+  out += Wrap("  Weather:     ", WeatherSourceText(plan));
   if (!plan.turbine.name.empty()) out += Wrap("  Turbine:     ", plan.turbine.name);
   out += StringPrintf("  Start:       %s\n", FormatDate(plan.start).c_str());
   out += StringPrintf("  Planned end: %s (%.1f weeks after the start)\n",
@@ -365,6 +367,7 @@ std::string FormatProgressJson(const Plan& plan, const ProgressSummary& s,
   j["tool"] = ToolJson(ctx.tool_version);
   j["kind"] = "progress";
   j["plan"] = PlanJson(plan);
+  j["weather"] = WeatherSourceJson(plan);
   j["log"] = {{"path", ctx.log_path}, {"records", ctx.log_records}};
   j["as_of"] = FormatDate(s.as_of);
   j["as_of_weeks"] = s.as_of_weeks;
