@@ -5,7 +5,8 @@
 #
 # Installs clang and libclang-rt-dev from Debian if missing (like
 # .ci/setup), builds into build-fuzz/ (or $FILLCAST_FUZZ_BUILD_DIR) and runs
-# fuzz_plan, fuzz_site_model and fuzz_met_csv, each on a copy of its seed
+# fuzz_plan, fuzz_site_model, fuzz_met_csv and fuzz_records_csv, each on a
+# copy of its seed
 # corpus (tests/fuzz/corpus/<target>/) in a temporary folder, so the
 # repository stays as it is. Any finding (crash, uncaught exception other
 # than planner::InputError, hang, leak, sanitizer report) stops the script
@@ -34,15 +35,16 @@ jobs="$(nproc 2>/dev/null || echo 2)"
 CC=clang CXX=clang++ cmake -S . -B "$build_dir" -DFILLCAST_FUZZ=ON \
   -DFILLCAST_BUILD_TESTS=OFF -DFILLCAST_BUILD_BENCH=OFF \
   -DCMAKE_BUILD_TYPE=RelWithDebInfo >/dev/null
-cmake --build "$build_dir" -j "$jobs" --target fuzz_plan fuzz_site_model fuzz_met_csv
+cmake --build "$build_dir" -j "$jobs" --target fuzz_plan fuzz_site_model fuzz_met_csv \
+  fuzz_records_csv
 
 findings="$build_dir/findings"
 mkdir -p "$findings"
 work="$(mktemp -d)"
 trap 'rm -rf "$work"' EXIT
-for target in plan site_model met_csv; do
+for target in plan site_model met_csv records_csv; do
   dict=tests/fuzz/yaml.dict
-  if [ "$target" = met_csv ]; then dict=tests/fuzz/csv.dict; fi
+  case "$target" in *_csv) dict=tests/fuzz/csv.dict ;; esac
   cp -r "tests/fuzz/corpus/$target" "$work/$target"
   echo "fillcast fuzz: fuzz_$target for ${seconds} s"
   # -timeout: one input taking this long is a hang; -rss_limit_mb: memory.

@@ -11,6 +11,7 @@
 #include <limits>
 #include <map>
 
+#include "io/csv_lines.h"
 #include "planner/calendar.h"
 #include "planner/error.h"
 
@@ -23,7 +24,6 @@ constexpr std::size_t kMaxListedColumns = 20;
 constexpr int64_t kSecondsPerDay = 86400;
 // Rows of met data are short; a line longer than this is the wrong file (or a
 // device such as /dev/zero, which has no line ends at all).
-constexpr std::size_t kMaxLineBytes = 1 << 20;
 const char kTimestampFormats[] =
     "YYYY-MM-DD, YYYY-MM-DD HH:MM[:SS] or YYYY-MM-DDTHH:MM[:SS]";
 const double kNaN = std::numeric_limits<double>::quiet_NaN();
@@ -500,23 +500,6 @@ MetSeries Parser::Finish() {
   return std::move(series_);
 }
 
-// The next line of `in` into *line (without its '\n'); false at the end.
-// Throws when a line exceeds kMaxLineBytes, instead of reading on forever.
-bool ReadLine(std::istream& in, std::vector<char>& buffer, std::string* line,
-              const std::string& file, int64_t line_no) {
-  in.getline(buffer.data(), static_cast<std::streamsize>(buffer.size()));
-  const std::size_t n = static_cast<std::size_t>(in.gcount());
-  if (in.fail() && !in.eof() && n + 1 >= buffer.size()) {
-    ThrowAt(SourceLocation{file, static_cast<int>(line_no), 0}, "",
-            "line is longer than 1 MiB; expected a CSV file of met data, one record "
-            "per line");
-  }
-  if (n == 0 && in.fail()) return false;
-  // getline counts the '\n' it consumed but does not store it.
-  line->assign(buffer.data(), in.eof() ? n : n - 1);
-  return true;
-}
-
 }  // namespace
 
 const char* SpeedUnitName(SpeedUnit unit) {
@@ -653,26 +636,7 @@ std::string FormatStep(int64_t step_s) {
 MetSeries ReadMetCsv(std::istream& in, const std::string& file_name,
                      const MetCsvOptions& options) {
   Parser parser(file_name, options);
-  std::string line;
-  std::vector<char> buffer(kMaxLineBytes + 2);
-  int64_t line_no = 0;
-  bool have_header = false;
-  while (ReadLine(in, buffer, &line, file_name, line_no + 1)) {
-    ++line_no;
-    if (line_no == 1 && line.compare(0, 3, "\xEF\xBB\xBF") == 0) line.erase(0, 3);
-    if (Trim(line).empty()) continue;
-    if (!have_header) {
-      parser.ReadHeader(line, line_no);
-      have_header = true;
-    } else {
-      parser.ReadRow(line, line_no);
-    }
-  }
-  if (!have_header) {
-    ThrowAt(SourceLocation{file_name, 0, 0}, "",
-            "is empty; expected a header row naming the columns, then one row per "
-            "record");
-  }
+  io::FeedCsvLines(in, file_name, false, "a CSV file of met data", "record", parser);
   return parser.Finish();
 }
 

@@ -8,6 +8,7 @@
 #include <fstream>
 #include <limits>
 
+#include "io/csv_lines.h"
 #include "io/met_csv_reader.h"
 #include "planner/error.h"
 #include "planner/site_fit.h"
@@ -48,12 +49,6 @@ const Role kEvent{"--event", "event", {"event"}, false};
 std::string Lower(std::string s) {
   for (char& c : s) c = static_cast<char>(std::tolower(static_cast<unsigned char>(c)));
   return s;
-}
-
-std::string Trim(const std::string& s) {
-  const std::size_t first = s.find_first_not_of(" \t\r");
-  if (first == std::string::npos) return "";
-  return s.substr(first, s.find_last_not_of(" \t\r") - first + 1);
 }
 
 std::string Join(const std::vector<std::string>& words) {
@@ -303,26 +298,8 @@ RecordsFile Parser::Finish() {
 RecordsFile ReadRecordsCsv(std::istream& in, const std::string& file_name,
                            const RecordsCsvOptions& options) {
   Parser parser(file_name, options);
-  std::string line;
-  int64_t line_no = 0;
-  bool have_header = false;
-  while (std::getline(in, line)) {
-    ++line_no;
-    if (line_no == 1 && line.compare(0, 3, "\xEF\xBB\xBF") == 0) line.erase(0, 3);
-    const std::string text = Trim(line);
-    if (text.empty() || text[0] == '#') continue;  // blank or comment line
-    if (!have_header) {
-      parser.ReadHeader(line, line_no);
-      have_header = true;
-    } else {
-      parser.ReadRow(line, line_no);
-    }
-  }
-  if (!have_header) {
-    ThrowAt(SourceLocation{file_name, 0, 0}, "",
-            "is empty; expected a header row naming the columns, then one row per "
-            "10-minute record");
-  }
+  io::FeedCsvLines(in, file_name, true, "a CSV file of campaign records",
+                   "10-minute record", parser);
   return parser.Finish();
 }
 
