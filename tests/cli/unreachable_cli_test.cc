@@ -75,6 +75,15 @@ TEST(UnreachableCliTest, ForecastSaysWhichCellCanNeverFillAndHeldEveryRunUp) {
       std::string::npos);
   // The production cells fill in some runs: the check is about one cell only.
   EXPECT_GT(j["cells"][0]["p_full_by_deadline"].get<double>(), 0.0);
+
+  // compare and start-sweep give the same warning before they simulate.
+  for (const std::string& command :
+       {"compare " + plan.string() + " " + plan.string() + " --runs 10",
+        "start-sweep " + plan.string() + " --runs 10 --months 2"}) {
+    const Outcome o = RunFillcast(command);
+    EXPECT_EQ(o.exit_code, 0) << command << "\n" << o.output;
+    EXPECT_EQ(o.output.rfind(warning, 0), 0u) << command << "\n" << o.output;
+  }
   std::filesystem::remove_all(dir);
 }
 

@@ -7,6 +7,7 @@
 
 #include "cli/commands.h"
 #include "cli/output_file.h"
+#include "cli/plan_warnings.h"
 #include "cli/run_options.h"
 #include "cli/terminal_progress.h"
 #include "planner/decision_report.h"
@@ -48,6 +49,7 @@ int RunCompare(const CompareArgs& args) {
   bool clash = false;
   for (const std::string& path : args.plan_paths) {
     plans.push_back(LoadPlan(path));
+    WarnUnreachable(plans.back());
     clash = clash || !names.insert(plans.back().name).second;
   }
   std::vector<ScenarioResult> scenarios;

@@ -6,6 +6,7 @@
 
 #include "cli/commands.h"
 #include "cli/output_file.h"
+#include "cli/plan_warnings.h"
 #include "cli/run_options.h"
 #include "cli/terminal_progress.h"
 #include "planner/error.h"
@@ -13,7 +14,6 @@
 #include "planner/forecast_report.h"
 #include "planner/monte_carlo.h"
 #include "planner/plan_reader.h"
-#include "planner/reachability.h"
 #include "planner/report_files.h"
 #include "planner/simulation.h"
 
@@ -60,20 +60,6 @@ std::string ReproducingCommand(const ForecastArgs& args) {
   return "fillcast forecast " + ShellWord(args.plan_path) + " --runs " +
          std::to_string(args.run.runs) + " --seed " + std::to_string(args.run.seed) +
          (args.run.threads > 0 ? " --threads " + std::to_string(args.run.threads) : "");
-}
-
-// Says before the simulation starts which cells the plan rules out (the
-// reports repeat it), so that a long run to the horizon is no surprise.
-void WarnUnreachable(const Plan& plan) {
-  const Reachability r = FindUnreachableCells(plan);
-  if (r.required_unreachable == 0) return;
-  std::cerr << "warning: " << plan.source_file << ": " << r.required_unreachable
-            << (r.required_unreachable == 1 ? " required cell" : " required cells")
-            << " can never fill:\n";
-  for (const UnreachableCell& u : r.cells) {
-    if (u.required) std::cerr << "  " << u.reason << "\n";
-  }
-  std::cerr << "  " << UnreachableAdvice(r) << "\n";
 }
 
 void WriteReportFiles(const ForecastArgs& args, const Plan& plan,

@@ -23,9 +23,9 @@ int main(int argc, char** argv) {
   app.footer(
       "A forecast is an estimate, not a promise. See README.md and docs/ for the "
       "file formats and methods.");
-  std::vector<CommandAction> actions = {AddForecastCommand(app), AddCompareCommand(app),
+  std::vector<CommandAction> actions = {AddForecastCommand(app),   AddCompareCommand(app),
                                         AddStartSweepCommand(app), AddSectorsCommand(app),
-                                        AddFitSiteCommand(app), AddLogCommand(app),
+                                        AddFitSiteCommand(app),    AddLogCommand(app),
                                         AddProgressCommand(app)};
   std::string names;
   bool known = false;

@@ -11,6 +11,7 @@
 
 #include "cli/commands.h"
 #include "cli/output_file.h"
+#include "cli/plan_warnings.h"
 #include "cli/run_options.h"
 #include "cli/terminal_progress.h"
 #include "planner/campaign_log.h"
@@ -206,6 +207,7 @@ int RunProgress(const ProgressArgs& args) {
                      " is invalid; expected a whole number >= 0");
   }
   const Plan plan = LoadPlan(args.plan_path);
+  WarnUnreachable(plan);
   const std::string log_path =
       args.log_path.empty() ? CampaignLog::DefaultPath(args.plan_path) : args.log_path;
   CampaignLog log(log_path, false);

@@ -6,6 +6,7 @@
 
 #include "cli/commands.h"
 #include "cli/output_file.h"
+#include "cli/plan_warnings.h"
 #include "cli/run_options.h"
 #include "cli/terminal_progress.h"
 #include "planner/decision.h"
@@ -39,6 +40,7 @@ int RunSweep(const SweepArgs& args) {
                      " is invalid; expected a whole number from 1 to 36");
   }
   const Plan plan = LoadPlan(args.plan_path);
+  WarnUnreachable(plan);
   const Date first{plan.start.year, plan.start.month, 1};
   std::vector<StartSweepRow> rows;
   TerminalProgress progress("runs (" + std::to_string(args.months) + " starts)",
