@@ -1,12 +1,11 @@
 // fillcast log add PLAN.yaml RECORDS.csv...: add the campaign's logged
 // 10-minute statistics to its campaign log (planner/campaign_log.h).
 #include <CLI/CLI.hpp>
-#include <chrono>
 #include <cmath>
-#include <ctime>
 #include <iostream>
 #include <memory>
 
+#include "cli/clock.h"
 #include "cli/commands.h"
 #include "io/met_csv_reader.h"
 #include "io/records_csv_reader.h"
@@ -41,16 +40,6 @@ void CheckOptions(const LogAddArgs& args) {
                      " is invalid; expected hours from -14 to 14 in steps of 10 minutes "
                      "(e.g. 1, -5, 5.5)");
   }
-}
-
-std::string NowUtc() {
-  const std::time_t now =
-      std::chrono::system_clock::to_time_t(std::chrono::system_clock::now());
-  std::tm utc{};
-  gmtime_r(&now, &utc);
-  char buf[32];
-  std::strftime(buf, sizeof buf, "%Y-%m-%dT%H:%M:%SZ", &utc);
-  return buf;
 }
 
 void PrintReport(const IngestReport& r) {

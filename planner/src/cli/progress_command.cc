@@ -2,13 +2,12 @@
 // forecast of the remainder from the as-of date; each run is stored in the
 // campaign log, and --history shows how the forecast moved.
 #include <CLI/CLI.hpp>
-#include <chrono>
-#include <ctime>
 #include <fstream>
 #include <iostream>
 #include <iterator>
 #include <memory>
 
+#include "cli/clock.h"
 #include "cli/commands.h"
 #include "cli/output_file.h"
 #include "cli/plan_warnings.h"
@@ -80,16 +79,6 @@ std::string InputsDigest(const Plan& plan, const std::vector<LoggedRecord>& reco
           r.event);
   }
   return d.Hex();
-}
-
-std::string NowUtc() {
-  const std::time_t now =
-      std::chrono::system_clock::to_time_t(std::chrono::system_clock::now());
-  std::tm utc{};
-  gmtime_r(&now, &utc);
-  char buf[32];
-  std::strftime(buf, sizeof buf, "%Y-%m-%dT%H:%M:%SZ", &utc);
-  return buf;
 }
 
 Date AsOfDate(const ProgressArgs& args, const std::vector<LoggedRecord>& records,

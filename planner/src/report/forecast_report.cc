@@ -121,10 +121,7 @@ std::string TextHeader(const Plan& plan, const ForecastSummary& s,
                        const ReportContext& ctx) {
   std::string out =
       StringPrintf("fillcast %s - campaign forecast\n", ctx.tool_version.c_str());
-  out += Wrap("  Plan:      ", plan.name);
-  out += Wrap("  Site:      ", plan.site.name);
-  out += Wrap("  Weather:   ", WeatherSourceText(plan));
-  if (!plan.turbine.name.empty()) out += Wrap("  Turbine:   ", plan.turbine.name);
+  out += PlanHeaderLines(plan, 13);
   out += StringPrintf("  Start:     %s\n", FormatDate(plan.start).c_str());
   out += StringPrintf("  Deadline:  %s (%.1f weeks after the start)\n",
                       FormatDate(plan.deadline).c_str(), s.deadline_weeks);

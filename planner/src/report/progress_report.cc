@@ -79,10 +79,7 @@ std::string Header(const Plan& plan, const ProgressSummary& s,
                    const ProgressReportContext& ctx) {
   std::string out =
       StringPrintf("fillcast %s - campaign progress\n", ctx.tool_version.c_str());
-  out += Wrap("  Plan:        ", plan.name);
-  out += Wrap("  Site:        ", plan.site.name);
-  out += Wrap("  Weather:     ", WeatherSourceText(plan));
-  if (!plan.turbine.name.empty()) out += Wrap("  Turbine:     ", plan.turbine.name);
+  out += PlanHeaderLines(plan, 15);
   out += StringPrintf("  Start:       %s\n", FormatDate(plan.start).c_str());
   out += StringPrintf("  Planned end: %s (%.1f weeks after the start)\n",
                       FormatDate(plan.deadline).c_str(), s.forecast.deadline_weeks);

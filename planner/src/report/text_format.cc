@@ -4,6 +4,7 @@
 #include <cmath>
 #include <sstream>
 
+#include "planner/weather_source.h"
 #include "report/report_numbers.h"
 
 namespace planner {
@@ -28,6 +29,18 @@ std::string CiRangeText(const QuantileEstimate& q) {
   if (q.ci_hi) return StringPrintf("up to %.1f", *q.ci_hi);
   if (q.ci_lo) return StringPrintf("from %.1f", *q.ci_lo);
   return "not available";
+}
+
+std::string PlanHeaderLines(const Plan& plan, size_t label_width) {
+  auto label = [label_width](const std::string& name) {
+    std::string l = "  " + name + ":";
+    return l + std::string(label_width > l.size() ? label_width - l.size() : 1, ' ');
+  };
+  std::string out = Wrap(label("Plan"), plan.name);
+  out += Wrap(label("Site"), plan.site.name);
+  out += Wrap(label("Weather"), WeatherSourceText(plan));
+  if (!plan.turbine.name.empty()) out += Wrap(label("Turbine"), plan.turbine.name);
+  return out;
 }
 
 std::string Wrap(const std::string& first, const std::string& text) {

@@ -7,6 +7,7 @@
 #include <string>
 
 #include "planner/calendar.h"
+#include "planner/plan.h"
 #include "planner/quantile.h"
 #include "report/report_numbers.h"
 
@@ -31,6 +32,9 @@ std::string CiRangeText(const QuantileEstimate& q);
 std::string Wrap(const std::string& first, const std::string& text);
 // Cuts a label to `width` characters with "..." when longer.
 std::string FitLabel(std::string label, size_t width);
+// The header lines every text report opens with: plan, site, weather and
+// (when named) turbine, labels padded to `label_width` ("  Plan:" + spaces).
+std::string PlanHeaderLines(const Plan& plan, size_t label_width);
 
 }  // namespace planner
 
