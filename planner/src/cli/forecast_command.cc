@@ -41,20 +41,6 @@ double ParseQuantile(const std::string& text) {
   throw InputError("--precision-of: '" + text + "' is invalid; expected p50, p80 or p90");
 }
 
-// A path as a POSIX shell word: unchanged when plain, else single-quoted.
-std::string ShellWord(const std::string& text) {
-  if (!text.empty() &&
-      text.find_first_not_of("abcdefghijklmnopqrstuvwxyzABCDEFGHIJKLMNOPQRSTU"
-                             "VWXYZ0123456789_-./+:=@%,") == std::string::npos) {
-    return text;
-  }
-  std::string out = "'";
-  for (const char ch : text) {
-    out += ch == '\'' ? std::string("'\\''") : std::string(1, ch);
-  }
-  return out + "'";
-}
-
 // The command that reproduces this result, for the report's inputs section.
 std::string ReproducingCommand(const ForecastArgs& args) {
   return "fillcast forecast " + ShellWord(args.plan_path) + " --runs " +

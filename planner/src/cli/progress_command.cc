@@ -131,18 +131,6 @@ StoredProgress ToStored(const Plan& plan, const ProgressSummary& s,
   return p;
 }
 
-std::string ShellWord(const std::string& text) {
-  if (!text.empty() &&
-      text.find_first_not_of("abcdefghijklmnopqrstuvwxyzABCDEFGHIJKLMNOPQRSTU"
-                             "VWXYZ0123456789_-./+:=@%,") == std::string::npos) {
-    return text;
-  }
-  std::string out = "'";
-  for (const char ch : text)
-    out += ch == '\'' ? std::string("'\\''") : std::string(1, ch);
-  return out + "'";
-}
-
 int RunHistory(const ProgressArgs& args, const Plan& plan, const CampaignLog& log,
                ProgressReportContext ctx) {
   if (!args.report_path.empty()) {

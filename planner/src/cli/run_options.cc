@@ -53,4 +53,17 @@ MonteCarloOptions ValidateRunOptions(const RunOptionArgs& args) {
   return mc;
 }
 
+std::string ShellWord(const std::string& text) {
+  if (!text.empty() &&
+      text.find_first_not_of("abcdefghijklmnopqrstuvwxyzABCDEFGHIJKLMNOPQRSTU"
+                             "VWXYZ0123456789_-./+:=@%,") == std::string::npos) {
+    return text;
+  }
+  std::string out = "'";
+  for (const char ch : text) {
+    out += ch == '\'' ? std::string("'\\''") : std::string(1, ch);
+  }
+  return out + "'";
+}
+
 }  // namespace planner

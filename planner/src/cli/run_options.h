@@ -27,6 +27,10 @@ void AddRunOptions(CLI::App* cmd, RunOptionArgs* args);
 // A flag's number as the user would write it ("1.5", not "1.500000").
 std::string FlagNumber(double x);
 
+// A path as a POSIX shell word: unchanged when plain, else single-quoted
+// (for the command lines the reports print to reproduce a run).
+std::string ShellWord(const std::string& text);
+
 // Checks ranges (InputError naming the flag) and fills MonteCarloOptions.
 MonteCarloOptions ValidateRunOptions(const RunOptionArgs& args);
 

@@ -1,5 +1,7 @@
 #include "report/cautions.h"
 
+#include "report/text_format.h"
+
 namespace planner {
 
 std::vector<std::string> StandardCautions() {
@@ -12,6 +14,17 @@ std::vector<std::string> StandardCautions() {
       "Work on the turbine and the measurement equipment follows local safety rules "
       "and is done by qualified people; fillcast plans none of it.",
   };
+}
+
+std::string NotesAndCautionsText(const std::vector<std::string>& notes) {
+  std::string out;
+  if (!notes.empty()) {
+    out += "\nNotes on this result\n";
+    for (const std::string& n : notes) out += Wrap("  - ", n);
+  }
+  out += "\nCautions\n";
+  for (const std::string& c : StandardCautions()) out += Wrap("  - ", c);
+  return out;
 }
 
 }  // namespace planner

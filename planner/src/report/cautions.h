@@ -14,6 +14,10 @@ namespace planner {
 // follows local safety rules and is done by qualified people.
 std::vector<std::string> StandardCautions();
 
+// The closing part of every text report: "Notes on this result" (when
+// `notes` is not empty), then the cautions, one wrapped item each.
+std::string NotesAndCautionsText(const std::vector<std::string>& notes);
+
 }  // namespace planner
 
 #endif  // PLANNER_REPORT_CAUTIONS_H_

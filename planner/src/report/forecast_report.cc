@@ -340,14 +340,7 @@ std::string FormatForecastText(const Plan& plan, const ForecastSummary& s,
   out += TextCompletion(plan, s);
   out += TextThinCells(plan, s, ctx);
   out += TextBottleneckAndDiagnostics(plan, s);
-  const std::vector<std::string> notes = ResultNotes(s);
-  if (!notes.empty()) {
-    out += "\nNotes on this result\n";
-    for (const std::string& n : notes) out += Wrap("  - ", n);
-  }
-  out += "\nCautions\n";
-  for (const std::string& c : StandardCautions()) out += Wrap("  - ", c);
-  return out;
+  return out + NotesAndCautionsText(ResultNotes(s));
 }
 
 std::string FormatForecastJson(const Plan& plan, const ForecastSummary& s,

@@ -348,14 +348,7 @@ std::string FormatProgressText(const Plan& plan, const ProgressSummary& s,
   out += ForecastText(plan, s);
   out += ExtensionText(plan, s);
   out += ThinText(plan, s, ctx.thin_cell_rows);
-  const std::vector<std::string> notes = Notes(s);
-  if (!notes.empty()) {
-    out += "\nNotes on this result\n";
-    for (const std::string& n : notes) out += Wrap("  - ", n);
-  }
-  out += "\nCautions\n";
-  for (const std::string& c : StandardCautions()) out += Wrap("  - ", c);
-  return out;
+  return out + NotesAndCautionsText(Notes(s));
 }
 
 std::string FormatProgressJson(const Plan& plan, const ProgressSummary& s,
