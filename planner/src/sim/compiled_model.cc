@@ -109,6 +109,12 @@ void CompileMatrix(const CaptureMatrix& matrix, CompiledModel* m) {
       cg.log_ti_lo.push_back(b.lo > 0 ? std::log(b.lo / 100.0) : -HUGE_VAL);
       cg.log_ti_hi.push_back(std::log(b.hi / 100.0));
     }
+    cg.ti_bins = static_cast<int>(cg.log_ti_lo.size());
+    int size = 1;
+    while (size < cg.ti_bins) size *= 2;
+    cg.ti_search_lo = cg.log_ti_lo;
+    cg.ti_search_lo.resize(size, HUGE_VAL);
+    cg.ti_half = size / 2;
     cg.cell_index = g.cell_index;
     for (const Bin& w : g.wind_bins_ms) cg.ti_row.push_back(m->ti_law.RowOfBin(w));
   }

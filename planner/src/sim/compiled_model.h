@@ -24,17 +24,20 @@ struct CompiledGrid {
   bool present = false;
   BinLookup wind;
   std::vector<double> log_ti_lo, log_ti_hi;  // empty = not binned
+  int ti_bins = 0;                           // their number
   std::vector<int> cell_index;
   // Per wind bin: the TI table row that holds the whole bin, -1 where TI
   // depends on the speed within the bin (TiLaw::RowOfBin).
   std::vector<int> ti_row;
+  // log_ti_lo padded with +infinity to a power of two, 2 * ti_half entries.
+  std::vector<double> ti_search_lo;
+  int ti_half = 0;
 
-  // TI bin of ln TI, or -1: counts the bins starting at or below the value
-  // without branching, then checks that bin's [lo, hi).
+  // TI bin of ln TI, or -1: a branch-free binary search for the last bin
+  // starting at or below the value, then that bin's [lo, hi) test.
   int TiBin(double log_ti) const {
-    const int bins = static_cast<int>(log_ti_lo.size());
     int above = 0;
-    for (int t = 1; t < bins; ++t) above += log_ti >= log_ti_lo[t];
+    for (int h = ti_half; h > 0; h >>= 1) above += log_ti >= ti_search_lo[above + h] ? h : 0;
     return (log_ti >= log_ti_lo[above] && log_ti < log_ti_hi[above]) ? above : -1;
   }
 };

@@ -4,6 +4,7 @@
 #include <boost/math/distributions/normal.hpp>
 #include <cmath>
 
+#include "planner/calendar.h"
 #include "planner/random_stream.h"
 #include "sim/compiled_model.h"
 #include "sim/outage_windows.h"
@@ -46,27 +47,61 @@ inline bool InSpans(const std::vector<Bin>& spans, double u) {
 // Curtailment outcome of a step.
 enum Curtail : int { kNotCurtailed = 0, kReduce = 1, kStop = 2 };
 
-// The mutable state of one run. Run() keeps it, and the weather engine, in
-// locals so that the compiler can hold them in registers through the hot loop.
-struct RunState {
-  int sector = 0;
-  double direction_u = 0;  // position within the sector, [0, 1)
-  // Cached for the current sector and direction (they change only on a new
-  // draw of the sector, about 3 % of steps at typical persistence).
+// The weather's own state between days (the weather does not depend on the
+// turbine or the records, so a day of it is computed ahead; see DayWeather).
+struct WeatherState {
+  double z = 0;  // latent wind-speed normal
   double sector_scale_ms = 0;
-  double hour_scale = 1;   // month, year and hour factors of this hour
-  double speed_scale = 0;  // sector_scale_ms * hour_scale
   const SpeedTransform* transform = nullptr;
-  bool sector_ok = false;
-  bool recordable = false;       // daq_up && sector_ok
-  uint32_t direction_rules = 0;  // curtailment rules whose direction holds
-  double z = 0;                  // latent wind-speed normal
   // Replay: the slot of the measured series in use, its speed and direction,
   // and its ln TI (NaN: none measured; TI then comes from the TI model).
   int64_t replay_slot = -1;
   double replay_speed_ms = 0;
   float replay_direction_deg = -1;
   double measured_log_ti = NAN;
+  int64_t block_start = 0;  // replay: measured day of the current block's first day
+};
+
+// A new direction from step `k` of a day on.
+struct DirectionChange {
+  int k = kStepsPerDay;  // kStepsPerDay ends a day's list
+  int sector = 0;
+  double direction_u = 0;
+};
+
+// One day of weather, made in a tight loop of its own before the turbine and
+// the records of the day are worked out from it.
+struct DayWeather {
+  double speed_ms[kStepsPerDay];
+  bool quality_ok[kStepsPerDay];  // the record passes the quality check
+  double measured_log_ti[kStepsPerDay];  // replay only
+  DirectionChange changes[kStepsPerDay + 1];  // in step order, then the end mark
+};
+
+// The model's per-step limits, copied into a local of the day loop so that
+// they stay in registers (stores through RunState could otherwise alias them).
+struct StepLimits {
+  double cut_in_ms, cut_out_ms, restart_ms;
+  bool parked_counts_during_outage;
+};
+
+// What every step updates, kept in registers through a day and written back
+// to RunState at the day's end and when the run stops.
+struct DayTallies {
+  double speed_sum_ms;
+  int64_t curtailed_steps;
+  bool high_wind_stop;
+};
+
+// The mutable state of one run. Run() keeps it in a local so that the
+// compiler can hold much of it in registers through the hot loop.
+struct RunState {
+  int sector = 0;
+  double direction_u = 0;  // position within the sector, [0, 1)
+  // Cached for the current direction.
+  bool sector_ok = false;
+  bool recordable = false;       // daq_up && sector_ok
+  uint32_t direction_rules = 0;  // curtailment rules whose direction holds
   double x_ti = 0;  // latent TI normal at step ti_step
   int64_t ti_step = 0;
   bool high_wind_stop = false;
@@ -80,8 +115,11 @@ struct RunState {
   int remaining = 0;   // required cells not yet full
   int tests_open = 0;  // manual-test cells not yet full
   // First step at which the loop must look at the deadline, the horizon or a
-  // completed matrix (one comparison per step instead of three).
+  // completed matrix.
   int64_t checkpoint = 0;
+  // The first step at which a checkpoint, an outage change or a new direction
+  // is due: one comparison per step for all three (RunLoop::OnEvents).
+  int64_t next_event = 0;
   // Diagnostics. The time shares are summed per interval, when the outage
   // states or the direction change (and at the end), not per step.
   int64_t turbine_up_steps = 0, daq_up_steps = 0, valid_sector_steps = 0;
@@ -112,29 +150,42 @@ class RunLoop {
   // state: continue a running campaign (null = from the plan's start).
   void Run(const CampaignState* state);
 
- private:
-  template <bool kTrace, bool kReplay>
-  void RunSteps(int64_t first_day, int64_t step, RunState& s, Engine& weather);
-  void ReplaySlot(int64_t slot, int64_t step, RunState& s) const;
-  int64_t DrawReplayBlock(int64_t day, Engine& e) const;
-  void SetDirectionDegrees(double direction_deg, int64_t step, RunState& s) const;
-  void ApplyState(const CampaignState& state, int64_t start_step, RunState& s);
-  void Trace(int64_t step, double speed_ms, int state, bool quality_ok, bool manual_test,
-             int cell, const RunState& s);
-
  public:
   std::vector<TracedRecord>* trace_ = nullptr;  // tests only: every record
 
  private:
+  template <bool kTrace, bool kReplay>
+  void RunSteps(int64_t first_day, int64_t step, RunState& s, WeatherState& ws,
+                Engine& weather);
+  void FillWeather(int64_t day, DayWeather& w, WeatherState& ws, Engine& weather) const;
+  void FillReplay(int64_t day, int64_t first_day, DayWeather& w, WeatherState& ws,
+                  Engine& weather, Engine& blocks) const;
+  void NewSector(uint64_t bits, int k, DirectionChange& change, WeatherState& ws) const;
+  void ReplaySlot(int64_t slot, int k, DirectionChange* changes, int& count,
+                  WeatherState& ws) const;
+  int64_t DrawReplayBlock(int64_t day, Engine& e) const;
+  DirectionChange DirectionOfDegrees(double direction_deg) const;
+  bool OnEvents(int64_t step, int64_t day_step, const DirectionChange*& change,
+                RunState& s);
+  void ApplyState(const CampaignState& state, int64_t start_step, RunState& s,
+                  WeatherState& ws);
+  void Trace(int64_t step, double speed_ms, int state, bool quality_ok, bool manual_test,
+             int cell, const RunState& s);
+  double TiNormal() {
+    if (ti_next_ == kTiBuffer) RefillTiNormals();
+    return ti_normals_[ti_next_++];
+  }
+  void RefillTiNormals();
+
   double traced_ti_ = 0;
   int64_t traced_ti_step_ = -1;
   int traced_event_type_ = -1, traced_event_cell_ = -1;
   void SetDirection(int sector, double direction_u, int64_t step, RunState& s) const;
-  RunState Start(uint64_t direction_bits, double z0);
+  RunState Start(uint64_t direction_bits);
   void DrawYearFactors();
   template <bool kTrace, bool kReplay>
-  void Step(int64_t step, int64_t slot, RunState& s, Engine& weather);
-  void NewDirection(uint64_t bits, int64_t step, RunState& s) const;
+  void Step(int64_t step, int k, const DayWeather& w, const StepLimits& lim,
+            DayTallies& day, RunState& s);
   uint32_t DirectionRules(int sector, double direction_u) const;
   void UpdateOutages(int64_t step, RunState& s);
   Curtail CurtailmentAt(double speed_ms, uint32_t rules) const;
@@ -142,10 +193,22 @@ class RunLoop {
                     RunState& s);
   bool TryManualTest(double speed_ms, bool valid, int64_t step, RunState& s);
   int CountEvent(int type, double speed_ms, int64_t step, RunState& s);
-  int CellOf(int state, double speed_ms, int64_t step, RunState& s);
+  template <bool kReplay>
+  int CellOf(int state, double speed_ms, double measured_log_ti, int64_t step,
+             RunState& s);
   void Count(int cell, int64_t step, RunState& s);
+  uint32_t NextMark(int cell, uint32_t n) const;
+  void ReachMark(int cell, int64_t step, RunState& s);
   void Stop(int64_t steps, const RunState& s);
   int64_t NextCheckpoint(int64_t step, int remaining);
+
+  // The TI stream's normals, drawn kTiBuffer at a time ahead of use (the same
+  // sequence as one at a time; the engine's state then stays out of the loop).
+  static constexpr int kTiBuffer = 64;
+  uint32_t* counts_ = nullptr;      // out_->count_at_end's data
+  std::vector<uint32_t> next_mark_;  // per cell, see Count
+  double ti_normals_[kTiBuffer];
+  int ti_next_ = kTiBuffer;
 
   const CompiledModel& m_;
   uint64_t seed_, run_;
@@ -161,9 +224,9 @@ class RunLoop {
   int64_t first_step_ = 0;  // no production start or stop is counted in it
 };
 
-// direction_bits and z0 are the weather stream's first draws. (The engine
-// itself stays out of every out-of-line call so it can live in registers.)
-RunState RunLoop::Start(uint64_t direction_bits, double z0) {
+// direction_bits is the weather stream's first draw. (The engines stay out of
+// every out-of-line call so that they can live in registers.)
+RunState RunLoop::Start(uint64_t direction_bits) {
   const size_t cells = m_.required.size();
   out_->count_at_deadline.assign(cells, 0);
   out_->count_at_end.assign(cells, 0);
@@ -172,11 +235,14 @@ RunState RunLoop::Start(uint64_t direction_bits, double z0) {
   out_->completion_step = -1;
   out_->last_cell = -1;
   out_->simulated_steps = 0;
+  counts_ = out_->count_at_end.data();
+  next_mark_.resize(cells);
+  for (size_t c = 0; c < cells; ++c) next_mark_[c] = NextMark(static_cast<int>(c), 0);
   // Start in the stationary distribution of direction and speed.
   RunState s;
-  NewDirection(direction_bits, 0, s);
-  s.z = z0;
-  s.x_ti = normal_(ti_engine_);
+  SetDirection(m_.sector_chain.frequencies.Draw(HighUniform(direction_bits)),
+               LowUniform(direction_bits), 0, s);
+  s.x_ti = TiNormal();
   s.remaining = m_.required_cells;
   s.tests_open = static_cast<int>(
       std::count(m_.manual_test_cell.begin(), m_.manual_test_cell.end(), 1));
@@ -184,8 +250,32 @@ RunState RunLoop::Start(uint64_t direction_bits, double z0) {
   return s;
 }
 
+void RunLoop::RefillTiNormals() {
+  Engine e = ti_engine_;
+  for (double& x : ti_normals_) x = normal_(e);
+  ti_engine_ = e;
+  ti_next_ = 0;
+}
+
+// A cell's count goes up by one. Only when it reaches the cell's next mark
+// (its relaxed or its full minimum) is there more to do.
 inline void RunLoop::Count(int cell, int64_t step, RunState& s) {
-  const uint32_t n = ++out_->count_at_end[cell];
+  if (++counts_[cell] == next_mark_[cell]) ReachMark(cell, step, s);
+}
+
+// The next count of `cell` above n at which something happens (0: none; a
+// count after an increment is never 0).
+uint32_t RunLoop::NextMark(int cell, uint32_t n) const {
+  uint32_t mark = 0;
+  for (const uint32_t m : {m_.relaxed_required[cell], m_.required[cell]})
+    if (m > n && (mark == 0 || m < mark)) mark = m;
+  return mark;
+}
+
+[[gnu::noinline, gnu::cold]] void RunLoop::ReachMark(int cell, int64_t step,
+                                                     RunState& s) {
+  const uint32_t n = counts_[cell];
+  next_mark_[cell] = NextMark(cell, n);
   if (n == m_.relaxed_required[cell]) out_->relaxed_full_step[cell] = step + 1;
   if (n != m_.required[cell]) return;
   out_->full_step[cell] = step + 1;
@@ -194,22 +284,24 @@ inline void RunLoop::Count(int cell, int64_t step, RunState& s) {
   if (--s.remaining == 0) {
     out_->completion_step = step + 1;
     out_->last_cell = cell;
-    s.checkpoint = step + 1;
+    s.checkpoint = s.next_event = step + 1;
   }
 }
 
-inline int RunLoop::CellOf(int state, double speed_ms, int64_t step, RunState& s) {
+template <bool kReplay>
+inline int RunLoop::CellOf(int state, double speed_ms, double measured_log_ti,
+                           int64_t step, RunState& s) {
   const CompiledGrid& g = m_.grids[state];
   if (!g.present) return -1;
   const int w = g.wind.Find(speed_ms);
   if (w < 0) return -1;
-  const int ti_bins = static_cast<int>(g.log_ti_hi.size());
+  const int ti_bins = g.ti_bins;
   if (ti_bins == 0) return g.cell_index[w];
-  s.x_ti = m_.ti_ar1.Advance(s.x_ti, step - s.ti_step, normal_(ti_engine_));
+  s.x_ti = m_.ti_ar1.Advance(s.x_ti, step - s.ti_step, TiNormal());
   s.ti_step = step;
   const int row = g.ti_row[w];
-  const double log_ti = !std::isnan(s.measured_log_ti) ? s.measured_log_ti
-                        : row >= 0                     ? m_.ti_law.RowSample(row, s.x_ti)
+  const double log_ti = kReplay && !std::isnan(measured_log_ti) ? measured_log_ti
+                        : row >= 0 ? m_.ti_law.RowSample(row, s.x_ti)
                                    : m_.ti_law.LogSample(speed_ms, s.x_ti);
   if (trace_ != nullptr) traced_ti_ = std::exp(log_ti), traced_ti_step_ = step;
   const int t = g.TiBin(log_ti);
@@ -229,14 +321,6 @@ uint32_t RunLoop::DirectionRules(int sector, double direction_u) const {
   return mask;
 }
 
-// A new draw of the sector (even of the same one) is a new direction in it.
-// Both uniforms come from one 64-bit word.
-[[gnu::noinline, gnu::cold]] void RunLoop::NewDirection(uint64_t bits, int64_t step,
-                                                        RunState& s) const {
-  SetDirection(m_.sector_chain.frequencies.Draw(HighUniform(bits)), LowUniform(bits),
-               step, s);
-}
-
 // The direction from `step` on.
 inline void RunLoop::SetDirection(int sector, double direction_u, int64_t step,
                                   RunState& s) const {
@@ -244,9 +328,6 @@ inline void RunLoop::SetDirection(int sector, double direction_u, int64_t step,
   s.direction_since = step;
   s.sector = sector;
   s.direction_u = direction_u;
-  s.sector_scale_ms = m_.sector_scale_ms[s.sector];
-  s.speed_scale = s.sector_scale_ms * s.hour_scale;
-  s.transform = &m_.speed_transform[s.sector];
   s.sector_ok = InSpans(m_.sector_valid_spans[s.sector], s.direction_u);
   s.recordable = s.daq_up && s.sector_ok;
   if (!m_.curtailment.empty())
@@ -315,7 +396,7 @@ inline int RunLoop::CountEvent(int type, double speed_ms, int64_t step, RunState
     if (step - last_test_[t] < test.min_interval_steps) continue;
     const EventCells& e = m_.events[test.event_type];
     const int i = e.wind.Find(speed_ms);
-    if (i < 0 || out_->count_at_end[e.cells[i]] >= m_.required[e.cells[i]]) continue;
+    if (i < 0 || counts_[e.cells[i]] >= m_.required[e.cells[i]]) continue;
     last_test_[t] = step;
     if (valid) Count(e.cells[i], step, s);
     if (trace_ != nullptr)
@@ -326,41 +407,28 @@ inline int RunLoop::CountEvent(int type, double speed_ms, int64_t step, RunState
   return false;
 }
 
-// One 10-minute record. The weather takes one 64-bit draw per step, whatever
-// happens below: its low 32 bits make the wind speed's normal innovation, bits
-// 32-47 decide whether the sector is drawn anew (then SplitMix64 of the draw
-// supplies the new sector and direction), bits 48-63 the quality check.
-// Under replay the speed, direction and TI come from the measured series'
-// slot instead, and the draw serves the quality check alone.
+// One 10-minute record: the turbine's state and what the record counts, from
+// the day's weather (FillWeather / FillReplay).
 template <bool kTrace, bool kReplay>
-inline void RunLoop::Step(int64_t step, int64_t slot, RunState& s, Engine& weather) {
-  const uint64_t r = weather();
-  double speed;
-  if constexpr (kReplay) {
-    if (slot != s.replay_slot) ReplaySlot(slot, step, s);
-    speed = s.replay_speed_ms;
-  } else {
-    if (KeepBits(r) >= m_.keep_threshold) NewDirection(SplitMix64(r), step, s);
-    s.z = m_.wind_ar1.Next(s.z, ZigguratNormal::FromWord(static_cast<uint32_t>(r)));
-    speed = s.speed_scale * (*s.transform)(s.z);
-  }
-  s.speed_sum_ms += speed;
+inline void RunLoop::Step(int64_t step, int k, const DayWeather& w, const StepLimits& lim,
+                          DayTallies& day, RunState& s) {
+  const double speed = w.speed_ms[k];
+  day.speed_sum_ms += speed;
 
   // Turbine state with cut-out hysteresis.
-  if (speed >= m_.cut_out_ms) {
-    s.high_wind_stop = true;
-  } else if (s.high_wind_stop && speed < m_.restart_ms) {
-    s.high_wind_stop = false;
+  if (speed >= lim.cut_out_ms) {
+    day.high_wind_stop = true;
+  } else if (day.high_wind_stop && speed < lim.restart_ms) {
+    day.high_wind_stop = false;
   }
-  if (step >= s.next_outage_step) UpdateOutages(step, s);
   Curtail curtail = kNotCurtailed;
   if (const uint32_t rules = s.hour_rules & s.direction_rules; rules != 0) {
     curtail = CurtailmentAt(speed, rules);
-    s.curtailed_steps += curtail != kNotCurtailed;
+    day.curtailed_steps += curtail != kNotCurtailed;
   }
   const bool producing =
-      s.turbine_up && !s.high_wind_stop && speed >= m_.cut_in_ms && curtail != kStop;
-  const bool quality_ok = QualityBits(r) >= m_.reject_threshold;
+      s.turbine_up && !day.high_wind_stop && speed >= lim.cut_in_ms && curtail != kStop;
+  const bool quality_ok = w.quality_ok[k];
   const bool transition = producing != s.producing;
   if (transition) OnTransition(producing, speed, s.recordable && quality_ok, step, s);
   const int state = producing ? (curtail == kReduce ? 2 : 0) : 1;
@@ -374,8 +442,8 @@ inline void RunLoop::Step(int64_t step, int64_t slot, RunState& s, Engine& weath
       if constexpr (kTrace) Trace(step, speed, state, quality_ok, true, -1, s);
       return;
     }
-    if (quality_ok && (producing || s.turbine_up || m_.parked_counts_during_outage)) {
-      cell = CellOf(state, speed, step, s);
+    if (quality_ok && (producing || s.turbine_up || lim.parked_counts_during_outage)) {
+      cell = CellOf<kReplay>(state, speed, kReplay ? w.measured_log_ti[k] : 0.0, step, s);
       if (cell >= 0) Count(cell, step, s);
     }
   }
@@ -419,11 +487,13 @@ void RunLoop::DrawYearFactors() {
 // Counts so far, cells already full, and the weather started from the latest
 // logged wind: its sector and position in it, and the normal score of its
 // speed under that sector's Weibull scaled as on the evening before.
-void RunLoop::ApplyState(const CampaignState& state, int64_t start_step, RunState& s) {
+void RunLoop::ApplyState(const CampaignState& state, int64_t start_step, RunState& s,
+                         WeatherState& ws) {
   s.ti_step = start_step;
   for (size_t c = 0; c < state.counts.size() && c < m_.required.size(); ++c) {
     const uint32_t n = state.counts[c];
     out_->count_at_end[c] = n;
+    next_mark_[c] = NextMark(static_cast<int>(c), n);
     if (n >= m_.relaxed_required[c]) out_->relaxed_full_step[c] = start_step;
     if (n < m_.required[c]) continue;
     out_->full_step[c] = start_step;
@@ -436,35 +506,109 @@ void RunLoop::ApplyState(const CampaignState& state, int64_t start_step, RunStat
     deadline_passed_ = true;
   }
   if (!state.has_last_wind || m_.replay) return;
-  SetDirectionDegrees(state.last_direction_deg, start_step, s);
-  const int sector = s.sector;
+  const DirectionChange d = DirectionOfDegrees(state.last_direction_deg);
+  SetDirection(d.sector, d.direction_u, start_step, s);
   const int64_t day = std::max<int64_t>(0, start_step / kStepsPerDay - 1);
-  const double scale = m_.sector_scale_ms[sector] *
+  const double scale = m_.sector_scale_ms[d.sector] *
                        m_.monthly_factors[m_.day_month[day]] *
                        year_factor_[m_.day_year[day]] * m_.hourly_factors[23];
-  s.z = NormalScoreOfSpeed(state.last_speed_ms / scale, m_.sector_shape[sector]);
+  ws.z = NormalScoreOfSpeed(state.last_speed_ms / scale, m_.sector_shape[d.sector]);
 }
 
 // The sector and the position in it of a direction in degrees.
-void RunLoop::SetDirectionDegrees(double direction_deg, int64_t step, RunState& s) const {
+DirectionChange RunLoop::DirectionOfDegrees(double direction_deg) const {
   const int sectors = static_cast<int>(m_.sector_scale_ms.size());
   const double shifted =
       std::fmod(direction_deg / m_.sector_width_deg + 0.5 + 10.0 * sectors,
                 static_cast<double>(sectors));
-  const int sector = std::min(sectors - 1, static_cast<int>(shifted));
-  SetDirection(sector, shifted - sector, step, s);
+  DirectionChange d;
+  d.sector = std::min(sectors - 1, static_cast<int>(shifted));
+  d.direction_u = shifted - d.sector;
+  return d;
 }
 
-// Replay: the measured record of `slot` from `step` on.
-void RunLoop::ReplaySlot(int64_t slot, int64_t step, RunState& s) const {
+// A day of the parametric weather. One 64-bit draw per step: its low 32 bits
+// make the wind speed's normal innovation, bits 32-47 decide whether the
+// sector is drawn anew (then SplitMix64 of the draw supplies the new sector
+// and direction), bits 48-63 are the quality check's.
+void RunLoop::FillWeather(int64_t day, DayWeather& w, WeatherState& ws,
+                          Engine& weather) const {
+  Engine e = weather;  // a local copy stays in registers
+  const double day_scale =
+      m_.monthly_factors[m_.day_month[day]] * year_factor_[m_.day_year[day]];
+  const uint32_t keep_threshold = m_.keep_threshold;
+  const uint32_t reject_threshold = m_.reject_threshold;
+  const LatentAr1 ar1 = m_.wind_ar1;
+  double z = ws.z;
+  const SpeedTransform* transform = ws.transform;
+  int changes = 0;
+  for (int hour = 0, k = 0; hour < 24; ++hour) {
+    const double hour_scale = day_scale * m_.hourly_factors[hour];
+    double speed_scale = ws.sector_scale_ms * hour_scale;
+    for (int i = 0; i < kStepsPerHour; ++i, ++k) {
+      const uint64_t r = e();
+      if (KeepBits(r) >= keep_threshold) {
+        NewSector(SplitMix64(r), k, w.changes[changes++], ws);
+        speed_scale = ws.sector_scale_ms * hour_scale;
+        transform = ws.transform;
+      }
+      z = ar1.Next(z, ZigguratNormal::FromWord(static_cast<uint32_t>(r)));
+      w.speed_ms[k] = speed_scale * (*transform)(z);
+      w.quality_ok[k] = QualityBits(r) >= reject_threshold;
+    }
+  }
+  w.changes[changes] = DirectionChange();
+  ws.z = z;
+  weather = e;
+}
+
+// A new draw of the sector (even of the same one) is a new direction in it,
+// from step k of the day on. Both uniforms come from one 64-bit word.
+[[gnu::noinline, gnu::cold]] void RunLoop::NewSector(uint64_t bits, int k,
+                                                     DirectionChange& change,
+                                                     WeatherState& ws) const {
+  change.k = k;
+  change.sector = m_.sector_chain.frequencies.Draw(HighUniform(bits));
+  change.direction_u = LowUniform(bits);
+  ws.sector_scale_ms = m_.sector_scale_ms[change.sector];
+  ws.transform = &m_.speed_transform[change.sector];
+}
+
+// A day of replayed weather: blocks of block_days from the plan's start, each
+// a measured block drawn from its own stream; a step's slot is the measured
+// record that covers it. The weather stream still gives one draw per step,
+// for the quality check alone.
+void RunLoop::FillReplay(int64_t day, int64_t first_day, DayWeather& w,
+                         WeatherState& ws, Engine& weather, Engine& blocks) const {
+  const int64_t block_days = m_.replay->options.block_days;
+  const int64_t per_day = m_.replay->records_per_day;
+  if (day == first_day || day % block_days == 0)
+    ws.block_start = DrawReplayBlock(day - day % block_days, blocks);
+  const int64_t day_slot = (ws.block_start + day % block_days) * per_day;
+  int changes = 0;
+  for (int k = 0; k < kStepsPerDay; ++k) {
+    const uint64_t r = weather();
+    const int64_t slot = day_slot + k * per_day / kStepsPerDay;
+    if (slot != ws.replay_slot) ReplaySlot(slot, k, w.changes, changes, ws);
+    w.speed_ms[k] = ws.replay_speed_ms;
+    w.measured_log_ti[k] = ws.measured_log_ti;
+    w.quality_ok[k] = QualityBits(r) >= m_.reject_threshold;
+  }
+  w.changes[changes] = DirectionChange();
+}
+
+// Replay: the measured record of `slot` from step k of the day on.
+void RunLoop::ReplaySlot(int64_t slot, int k, DirectionChange* changes, int& count,
+                         WeatherState& ws) const {
   const WeatherReplay& r = *m_.replay;
-  s.replay_slot = slot;
-  s.replay_speed_ms = r.speed_ms[slot];
-  s.measured_log_ti = r.log_ti[slot];
+  ws.replay_slot = slot;
+  ws.replay_speed_ms = r.speed_ms[slot];
+  ws.measured_log_ti = r.log_ti[slot];
   const float direction = r.direction_deg[slot];
-  if (r.has_direction && direction != s.replay_direction_deg) {
-    s.replay_direction_deg = direction;
-    SetDirectionDegrees(direction, step, s);
+  if (r.has_direction && direction != ws.replay_direction_deg) {
+    ws.replay_direction_deg = direction;
+    changes[count] = DirectionOfDegrees(direction);
+    changes[count++].k = k;
   }
 }
 
@@ -479,59 +623,81 @@ int64_t RunLoop::DrawReplayBlock(int64_t day, Engine& e) const {
 void RunLoop::Run(const CampaignState* state) {
   Engine weather = MakeRunEngine(seed_, run_);
   const uint64_t direction_bits = weather();
-  const double z0 = normal_(weather);
-  RunState s = Start(direction_bits, z0);
+  WeatherState ws;
+  ws.z = normal_(weather);
+  RunState s = Start(direction_bits);
   const int64_t first_day = state != nullptr ? state->elapsed_days : 0;
   const int64_t step = first_day * kStepsPerDay;
   first_step_ = step;
   s.direction_since = s.outages_since = step;
-  if (state != nullptr) ApplyState(*state, step, s);
+  if (state != nullptr) ApplyState(*state, step, s, ws);
+  ws.sector_scale_ms = m_.sector_scale_ms[s.sector];
+  ws.transform = &m_.speed_transform[s.sector];
   s.checkpoint = step;
   const bool replay = m_.replay != nullptr;
   if (trace_ != nullptr) {
-    replay ? RunSteps<true, true>(first_day, step, s, weather)
-           : RunSteps<true, false>(first_day, step, s, weather);
+    replay ? RunSteps<true, true>(first_day, step, s, ws, weather)
+           : RunSteps<true, false>(first_day, step, s, ws, weather);
   } else {
-    replay ? RunSteps<false, true>(first_day, step, s, weather)
-           : RunSteps<false, false>(first_day, step, s, weather);
+    replay ? RunSteps<false, true>(first_day, step, s, ws, weather)
+           : RunSteps<false, false>(first_day, step, s, ws, weather);
   }
 }
 
 template <bool kTrace, bool kReplay>
-void RunLoop::RunSteps(int64_t first_day, int64_t step, RunState& s, Engine& weather) {
+void RunLoop::RunSteps(int64_t first_day, int64_t step, RunState& s, WeatherState& ws,
+                       Engine& weather) {
   const int64_t days = static_cast<int64_t>(m_.day_month.size());
-  // Replay: blocks of block_days from the plan's start, each a measured block
-  // drawn from its own stream; slot = the measured record of a step.
   Engine blocks = MakeRunEngine(seed_ ^ kReplaySalt, run_);
-  const int64_t block_days = kReplay ? m_.replay->options.block_days : 1;
-  const int64_t per_day = kReplay ? m_.replay->records_per_day : 0;
-  int64_t block_start = 0;  // measured day of the current block's first day
+  DayWeather w;
+  const StepLimits lim{m_.cut_in_ms, m_.cut_out_ms, m_.restart_ms,
+                       m_.parked_counts_during_outage};
   for (int64_t day = first_day; day < days; ++day) {
-    int64_t day_slot = 0;  // first slot of the measured day replayed today
     if constexpr (kReplay) {
-      if (day == first_day || day % block_days == 0)
-        block_start = DrawReplayBlock(day - day % block_days, blocks);
-      day_slot = (block_start + day % block_days) * per_day;
+      FillReplay(day, first_day, w, ws, weather, blocks);
+    } else {
+      FillWeather(day, w, ws, weather);
     }
+    const int64_t day_step = step;
+    const DirectionChange* change = w.changes;
+    s.next_event = std::min({s.checkpoint, s.next_outage_step, day_step + change->k});
     const int month = m_.day_month[day];
-    const double day_scale = m_.monthly_factors[month] * year_factor_[m_.day_year[day]];
-    for (int hour = 0; hour < 24; ++hour) {
-      s.hour_scale = day_scale * m_.hourly_factors[hour];
-      s.speed_scale = s.sector_scale_ms * s.hour_scale;
+    DayTallies tallies{s.speed_sum_ms, s.curtailed_steps, s.high_wind_stop};
+    for (int hour = 0, k = 0; hour < 24; ++hour) {
       s.hour_rules = m_.curtail_time_mask[month][hour];
       s.crew_here = m_.day_crew[day] && ((m_.crew_hour_mask >> hour) & 1u);
-      for (int k = 0; k < kStepsPerHour; ++k, ++step) {
-        if (step >= s.checkpoint) {
-          s.checkpoint = NextCheckpoint(step, s.remaining);
-          if (s.checkpoint < 0) return Stop(step, s);
+      for (int i = 0; i < kStepsPerHour; ++i, ++k, ++step) {
+        if (step >= s.next_event && !OnEvents(step, day_step, change, s)) {
+          s.speed_sum_ms = tallies.speed_sum_ms;
+          s.curtailed_steps = tallies.curtailed_steps;
+          return Stop(step, s);
         }
-        const int64_t slot =
-            kReplay ? day_slot + (hour * kStepsPerHour + k) * per_day / kStepsPerDay : 0;
-        Step<kTrace, kReplay>(step, slot, s, weather);
+        Step<kTrace, kReplay>(step, k, w, lim, tallies, s);
       }
     }
+    s.speed_sum_ms = tallies.speed_sum_ms;
+    s.curtailed_steps = tallies.curtailed_steps;
+    s.high_wind_stop = tallies.high_wind_stop;
   }
   Stop(step, s);
+}
+
+// What is due at `step`: the deadline, horizon or completion checkpoint, a new
+// direction, a change of the outage states. False when the run is over.
+[[gnu::noinline, gnu::cold]] bool RunLoop::OnEvents(int64_t step, int64_t day_step,
+                                                    const DirectionChange*& change,
+                                                    RunState& s) {
+  if (step >= s.checkpoint) {
+    s.checkpoint = NextCheckpoint(step, s.remaining);
+    if (s.checkpoint < 0) return false;
+  }
+  if (day_step + change->k == step) {
+    SetDirection(change->sector, change->direction_u, step, s);
+    ++change;
+  }
+  if (step >= s.next_outage_step) UpdateOutages(step, s);
+  s.next_event = std::min({s.checkpoint, s.next_outage_step, day_step + change->k});
+  return true;
 }
 
 // The next step the loop must stop at, or -1 when the run is over. Takes the

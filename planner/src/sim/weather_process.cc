@@ -8,9 +8,12 @@ double SpeedTransform::Exact(double z, double weibull_k) {
   return std::pow(-std::log(upper_tail), 1.0 / weibull_k);
 }
 
-SpeedTransform::SpeedTransform(double weibull_k) : table_(kIntervals + 1) {
-  for (int i = 0; i <= kIntervals; ++i) {
-    table_[i] = Exact(kZMin + i / kInvStep, weibull_k);
+SpeedTransform::SpeedTransform(double weibull_k) : nodes_(kIntervals) {
+  double value = Exact(kZMin, weibull_k);
+  for (int i = 0; i < kIntervals; ++i) {
+    const double next = Exact(kZMin + (i + 1) / kInvStep, weibull_k);
+    nodes_[i] = {value, next - value};
+    value = next;
   }
 }
 

@@ -13,6 +13,7 @@
 #ifndef PLANNER_SIM_WEATHER_PROCESS_H_
 #define PLANNER_SIM_WEATHER_PROCESS_H_
 
+#include <algorithm>
 #include <cmath>
 #include <vector>
 
@@ -74,12 +75,10 @@ class SpeedTransform {
 
   // Unit-scale Weibull quantile of Phi(z); multiply by A for m/s.
   double operator()(double z) const {
-    double x = (z - kZMin) * kInvStep;
-    if (x < 0.0) x = 0.0;
-    if (x > kIntervals - 1e-9) x = kIntervals - 1e-9;
+    const double x = std::min(std::max((z - kZMin) * kInvStep, 0.0), kIntervals - 1e-9);
     const int i = static_cast<int>(x);
     const double f = x - i;
-    return table_[i] + f * (table_[i + 1] - table_[i]);
+    return nodes_[i].value + f * nodes_[i].slope;
   }
 
   // The exact map, for building the table and for tests.
@@ -87,7 +86,13 @@ class SpeedTransform {
 
  private:
   static constexpr double kInvStep = kIntervals / (kZMax - kZMin);
-  std::vector<double> table_;
+  // Per grid point: the value and the difference to the next point (the
+  // interpolation's two loads side by side).
+  struct Node {
+    double value = 0;
+    double slope = 0;
+  };
+  std::vector<Node> nodes_;
 };
 
 }  // namespace planner
