@@ -186,6 +186,10 @@ class RunLoop {
   template <bool kTrace, bool kReplay>
   void Step(int64_t step, int k, const DayWeather& w, const StepLimits& lim,
             DayTallies& day, RunState& s);
+  template <bool kCounting, bool kReplay>
+  int PlainStretch(int k, int end, int64_t day_step, const DayWeather& w,
+                   const StepLimits& lim, DayTallies& day, RunState& s,
+                   bool* transition);
   uint32_t DirectionRules(int sector, double direction_u) const;
   void UpdateOutages(int64_t step, RunState& s);
   Curtail CurtailmentAt(double speed_ms, uint32_t rules) const;
@@ -339,10 +343,13 @@ inline void RunLoop::SetDirection(int sector, double direction_u, int64_t step,
   if (s.turbine_up) s.turbine_up_steps += step - s.outages_since;
   if (s.daq_up) s.daq_up_steps += step - s.outages_since;
   s.outages_since = step;
+  // (Every process is asked, so that each one's next change step is current.)
   const bool turbine_random_up = turbine_.UpAt(step);
   const bool daq_random_up = daq_.UpAt(step);
-  s.turbine_up = turbine_random_up && !planned_turbine_.InAt(step);
-  s.daq_up = daq_random_up && !planned_daq_.InAt(step);
+  const bool turbine_planned_out = planned_turbine_.InAt(step);
+  const bool daq_planned_out = planned_daq_.InAt(step);
+  s.turbine_up = turbine_random_up && !turbine_planned_out;
+  s.daq_up = daq_random_up && !daq_planned_out;
   s.recordable = s.daq_up && s.sector_ok;
   s.next_outage_step =
       std::min({turbine_.NextChangeStep(), daq_.NextChangeStep(),
@@ -644,6 +651,65 @@ void RunLoop::Run(const CampaignState* state) {
   }
 }
 
+// Steps [k, end) of a plain stretch: no curtailment rule is in force and the
+// turbine's, the data acquisition's and the direction's states hold (they
+// change only at events). With kCounting the turbine and data acquisition are
+// up and the direction is valid, so every record goes to the production or
+// parked grid as the wind and the cut-out hysteresis say (or is a manual
+// test); without it no record can count (acquisition down or direction not
+// valid, or the turbine down with parked records not counted) and only the
+// turbine's state is followed. Either way this loop carries less state than
+// Step. Returns the first step not done: end, or a step at which production
+// starts or stops (for Step to do; *transition is then true), or the step
+// after a manual test or a cell reaching a mark (so that what is due is
+// looked at again).
+template <bool kCounting, bool kReplay>
+int RunLoop::PlainStretch(int k, int end, int64_t day_step, const DayWeather& w,
+                          const StepLimits& lim, DayTallies& day, RunState& s,
+                          bool* transition) {
+  *transition = false;
+  double speed_sum_ms = day.speed_sum_ms;
+  bool high_wind_stop = day.high_wind_stop;
+  const bool producing_before = s.producing;
+  const bool turbine_up = s.turbine_up;
+  const bool tests_possible = kCounting && s.crew_here && s.tests_open > 0;
+  for (; k < end; ++k) {
+    const double speed = w.speed_ms[k];
+    bool stop = high_wind_stop;
+    if (speed >= lim.cut_out_ms) {
+      stop = true;
+    } else if (stop && speed < lim.restart_ms) {
+      stop = false;
+    }
+    const bool producing = turbine_up && !stop && speed >= lim.cut_in_ms;
+    if (producing != producing_before) {
+      *transition = true;
+      break;
+    }
+    speed_sum_ms += speed;
+    high_wind_stop = stop;
+    if constexpr (kCounting) {
+      const int64_t step = day_step + k;
+      if (tests_possible && producing &&
+          TryManualTest(speed, w.quality_ok[k], step, s)) {
+        ++k;
+        break;
+      }
+      if (!w.quality_ok[k]) continue;
+      const int cell = CellOf<kReplay>(producing ? 0 : 1, speed,
+                                       kReplay ? w.measured_log_ti[k] : 0.0, step, s);
+      if (cell >= 0 && ++counts_[cell] == next_mark_[cell]) {
+        ReachMark(cell, step, s);
+        ++k;
+        break;
+      }
+    }
+  }
+  day.speed_sum_ms = speed_sum_ms;
+  day.high_wind_stop = high_wind_stop;
+  return k;
+}
+
 template <bool kTrace, bool kReplay>
 void RunLoop::RunSteps(int64_t first_day, int64_t step, RunState& s, WeatherState& ws,
                        Engine& weather) {
@@ -662,19 +728,55 @@ void RunLoop::RunSteps(int64_t first_day, int64_t step, RunState& s, WeatherStat
     const DirectionChange* change = w.changes;
     s.next_event = std::min({s.checkpoint, s.next_outage_step, day_step + change->k});
     const int month = m_.day_month[day];
+    const bool crew_day = m_.day_crew[day] != 0;
+    // Per hour: the first later hour at which a curtailment rule comes into
+    // force or the crew arrives or leaves (a plain stretch ends there).
+    int plain_end[24];
+    plain_end[23] = 24;
+    for (int h = 22; h >= 0; --h) {
+      const bool same_crew = ((m_.crew_hour_mask >> h) & 1u) ==
+                             ((m_.crew_hour_mask >> (h + 1)) & 1u);
+      plain_end[h] = m_.curtail_time_mask[month][h + 1] == 0 && (same_crew || !crew_day)
+                         ? plain_end[h + 1]
+                         : h + 1;
+    }
     DayTallies tallies{s.speed_sum_ms, s.curtailed_steps, s.high_wind_stop};
-    for (int hour = 0, k = 0; hour < 24; ++hour) {
+    for (int k = 0; k < kStepsPerDay;) {
+      const int hour = k / kStepsPerHour;
       s.hour_rules = m_.curtail_time_mask[month][hour];
-      s.crew_here = m_.day_crew[day] && ((m_.crew_hour_mask >> hour) & 1u);
-      for (int i = 0; i < kStepsPerHour; ++i, ++k, ++step) {
+      s.crew_here = crew_day && ((m_.crew_hour_mask >> hour) & 1u);
+      for (const int hour_end = k - k % kStepsPerHour + kStepsPerHour; k < hour_end;) {
+        step = day_step + k;
         if (step >= s.next_event && !OnEvents(step, day_step, change, s)) {
           s.speed_sum_ms = tallies.speed_sum_ms;
           s.curtailed_steps = tallies.curtailed_steps;
           return Stop(step, s);
         }
+        // (An outage state may be due again at once: then no stretch.)
+        const int end = static_cast<int>(std::min<int64_t>(
+            plain_end[hour] * kStepsPerHour, s.next_event - day_step));
+        if (!kTrace && s.hour_rules == 0 && end > k) {
+          bool transition = false;
+          if (s.recordable && s.turbine_up) {
+            k = PlainStretch<true, kReplay>(k, end, day_step, w, lim, tallies, s,
+                                            &transition);
+          } else if (!s.recordable || !lim.parked_counts_during_outage) {
+            k = PlainStretch<false, kReplay>(k, end, day_step, w, lim, tallies, s,
+                                             &transition);
+          } else {  // turbine down, parked records counted: the full steps
+            for (; k < end; ++k) Step<kTrace, kReplay>(day_step + k, k, w, lim, tallies, s);
+          }
+          if (transition) {  // a production start or stop: the full step
+            Step<kTrace, kReplay>(day_step + k, k, w, lim, tallies, s);
+            ++k;
+          }
+          break;  // k may be hours on: set the hour's rules and crew anew
+        }
         Step<kTrace, kReplay>(step, k, w, lim, tallies, s);
+        ++k;
       }
     }
+    step = day_step + kStepsPerDay;
     s.speed_sum_ms = tallies.speed_sum_ms;
     s.curtailed_steps = tallies.curtailed_steps;
     s.high_wind_stop = tallies.high_wind_stop;

@@ -1,0 +1,92 @@
+// The forecast loop takes a shorter path through stretches in which no
+// curtailment rule is in force and the outage and direction states hold
+// (PlainStretch in sim/simulation.cc); the traced loop, used to rebuild
+// campaign logs, never takes it and works every record in full (Step). Same
+// seed, same run: every result must agree exactly. The plans exercise every
+// feature that the shorter path leaves out or hands back: curtailment in
+// force, manual tests with the crew on site, production starts and stops,
+// turbine and acquisition outages, planned outages, parked records counted
+// during outages, replayed weather.
+#include <gtest/gtest.h>
+
+#include <memory>
+#include <string>
+#include <vector>
+
+#include "io/met_csv_reader.h"
+#include "model/irish_wind_data.h"
+#include "planner/calendar.h"
+#include "planner/plan_reader.h"
+#include "planner/replay.h"
+#include "planner/simulation.h"
+
+namespace planner {
+namespace {
+
+Plan DemoPlan(const std::string& file) {
+  Plan plan = LoadPlan(std::string(FILLCAST_SOURCE_DIR) + "/demo-site/" + file);
+  plan.horizon_weeks = 60;  // long enough for summer curtailment and a winter
+  return plan;
+}
+
+void ExpectSameRuns(const Plan& plan, const std::string& what) {
+  const Simulator sim(plan);
+  for (uint64_t seed : {1u, 7u}) {
+    for (uint64_t run = 0; run < 4; ++run) {
+      RunResult fast, full;
+      std::vector<TracedRecord> records;
+      sim.Run(seed, run, &fast);
+      sim.Trace(seed, run, &full, &records);
+      const std::string where =
+          what + ", seed " + std::to_string(seed) + ", run " + std::to_string(run);
+      EXPECT_EQ(fast.completion_step, full.completion_step) << where;
+      EXPECT_EQ(fast.last_cell, full.last_cell) << where;
+      EXPECT_EQ(fast.count_at_deadline, full.count_at_deadline) << where;
+      EXPECT_EQ(fast.count_at_end, full.count_at_end) << where;
+      EXPECT_EQ(fast.full_step, full.full_step) << where;
+      EXPECT_EQ(fast.relaxed_full_step, full.relaxed_full_step) << where;
+      EXPECT_EQ(fast.simulated_steps, full.simulated_steps) << where;
+      EXPECT_EQ(fast.turbine_up_steps, full.turbine_up_steps) << where;
+      EXPECT_EQ(fast.daq_up_steps, full.daq_up_steps) << where;
+      EXPECT_EQ(fast.valid_sector_steps, full.valid_sector_steps) << where;
+      EXPECT_EQ(fast.curtailed_steps, full.curtailed_steps) << where;
+      // The same sums in the same order: equal to the last bit.
+      EXPECT_EQ(fast.speed_sum_ms, full.speed_sum_ms) << where;
+    }
+  }
+}
+
+TEST(PlainStretchTest, DemoPlanRunsAgreeWithTheFullLoop) {
+  const Plan plan = DemoPlan("plan.yaml");
+  ASSERT_FALSE(plan.curtailment.empty());
+  ExpectSameRuns(plan, "demo plan");
+}
+
+TEST(PlainStretchTest, SecondDemoPlanRunsAgreeWithTheFullLoop) {
+  ExpectSameRuns(DemoPlan("plan-estuary.yaml"), "estuary plan");
+}
+
+// Parked records counted while the turbine is out: those stretches take the
+// full path; the ones around them the shorter one.
+TEST(PlainStretchTest, ParkedCountsDuringOutagesAgreeWithTheFullLoop) {
+  Plan plan = DemoPlan("plan.yaml");
+  plan.parked_counts_during_outage = true;
+  ExpectSameRuns(plan, "parked counts during outages");
+}
+
+// Replayed weather (the open Irish daily data, tests/data/irish-daily-wind)
+// goes through the same two loops.
+TEST(PlainStretchTest, ReplayedWeatherAgreesWithTheFullLoop) {
+  MetCsvOptions csv;
+  csv.time_column = "date";
+  csv.speed_column = "MAL";
+  csv.units = SpeedUnit::kKnots;
+  ReplayOptions options;
+  Plan plan = DemoPlan("plan.yaml");
+  plan.replay = std::make_shared<const WeatherReplay>(
+      BuildWeatherReplay(LoadMetCsv(irish_wind::SpeedsFile(), csv), options));
+  ExpectSameRuns(plan, "replayed weather");
+}
+
+}  // namespace
+}  // namespace planner
