@@ -17,13 +17,13 @@ SpeedTransform::SpeedTransform(double weibull_k) : nodes_(kIntervals) {
   }
 }
 
-Ar1Skipper::Ar1Skipper(double tau_h) : keep_(kTable), fresh_(kTable) {
+Ar1Skipper::Ar1Skipper(double tau_h) : jump_(kTable) {
   const double phi = Ar1Phi(tau_h);
   if (phi > 0.0) log_phi_ = std::log(phi);
   for (int k = 0; k < kTable; ++k) {
     const double p = k == 0 ? 1.0 : (phi > 0.0 ? std::exp(k * log_phi_) : 0.0);
-    keep_[k] = p;
-    fresh_[k] = std::sqrt(1.0 - p * p);
+    jump_[k].keep = p;
+    jump_[k].fresh = std::sqrt(1.0 - p * p);
   }
 }
 

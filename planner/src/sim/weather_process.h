@@ -45,14 +45,18 @@ class Ar1Skipper {
   explicit Ar1Skipper(double tau_h = 0.0);
   // e ~ N(0, 1); k >= 0.
   double Advance(double x, int64_t k, double e) const {
-    if (k < kTable) return keep_[k] * x + fresh_[k] * e;
+    if (k < kTable) return jump_[k].keep * x + jump_[k].fresh * e;
     const double p = std::exp(static_cast<double>(k) * log_phi_);
     return p * x + std::sqrt(1.0 - p * p) * e;
   }
 
  private:
   double log_phi_ = -HUGE_VAL;
-  std::vector<double> keep_, fresh_;  // phi^k and sqrt(1 - phi^2k)
+  struct Jump {
+    double keep = 0;   // phi^k
+    double fresh = 0;  // sqrt(1 - phi^2k)
+  };
+  std::vector<Jump> jump_;
 };
 
 struct SectorChain {
