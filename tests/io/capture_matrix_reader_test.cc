@@ -18,10 +18,7 @@ using reader_test::SourcePath;
 
 // Nine lines; lines 5-9 are the matrix the cases edit or extend.
 const std::string kBase =
-    "name: Matrix test\n"
-    "site_model: coastal-ridge.yaml\n"
-    "campaign: {start: 2027-03-01, deadline: 2028-03-01}\n"
-    "turbine: {name: T1, cut_in_ms: 3, rated_ms: 11, cut_out_ms: 25}\n"
+    reader_test::PlanHead("Matrix test") +
     "capture_matrix:\n"
     "  production:\n"
     "    wind_bins_ms: [4, 5, 6, 7]\n"

@@ -17,15 +17,7 @@ using reader_test::Replace;
 using reader_test::SourcePath;
 
 // Eight lines; the section under test follows from line 9.
-const std::string kBase =
-    "name: Curtailment test\n"
-    "site_model: coastal-ridge.yaml\n"
-    "campaign: {start: 2027-03-01, deadline: 2028-03-01}\n"
-    "turbine: {name: T1, cut_in_ms: 3, rated_ms: 11, cut_out_ms: 25}\n"
-    "capture_matrix:\n"
-    "  production:\n"
-    "    wind_bins_ms: {from: 4, to: 8, width: 1}\n"
-    "    min_records: 10\n";
+const std::string kBase = reader_test::BasePlan("Curtailment test");
 
 // Lines 9-14.
 const std::string kRule =

@@ -19,10 +19,7 @@ using reader_test::SourcePath;
 
 // Fourteen lines; the first event cell is on lines 12-14.
 const std::string kBase =
-    "name: Event test\n"
-    "site_model: coastal-ridge.yaml\n"
-    "campaign: {start: 2027-03-01, deadline: 2028-03-01}\n"
-    "turbine: {name: T1, cut_in_ms: 3, rated_ms: 11, cut_out_ms: 25}\n"
+    reader_test::PlanHead("Event test") +
     "manual_tests:\n"
     "  tests: [{name: emergency_stop, wind_ms: [10, 14]}]\n"
     "capture_matrix:\n"

@@ -18,10 +18,7 @@ using reader_test::ErrorOf;
 using reader_test::TestPlanError;
 
 const std::string kPlanHead =
-    "name: Fuzz regression\n"
-    "site_model: coastal-ridge.yaml\n"
-    "campaign: {start: 2027-03-01, deadline: 2028-03-01}\n"
-    "turbine: {name: T1, cut_in_ms: 3, rated_ms: 11, cut_out_ms: 25}\n"
+    reader_test::PlanHead("Fuzz regression") +
     "capture_matrix:\n"
     "  production: {wind_bins_ms: [4, 8], min_records: 10}\n";
 

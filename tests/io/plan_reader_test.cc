@@ -24,15 +24,7 @@ const char kFile[] = "plan.yaml";
 
 // Eight lines; the bad-input cases below edit one piece of it. The site model
 // is the shipped coastal ridge (base_dir is site-models/).
-const std::string kBasePlan =
-    "name: Test plan\n"
-    "site_model: coastal-ridge.yaml\n"
-    "campaign: {start: 2027-03-01, deadline: 2028-03-01}\n"
-    "turbine: {name: T1, cut_in_ms: 3, rated_ms: 11, cut_out_ms: 25}\n"
-    "capture_matrix:\n"
-    "  production:\n"
-    "    wind_bins_ms: {from: 4, to: 8, width: 1}\n"
-    "    min_records: 10\n";
+const std::string kBasePlan = reader_test::BasePlan("Test plan");
 
 std::string BaseDir() { return SourcePath("site-models"); }
 

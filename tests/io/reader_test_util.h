@@ -37,6 +37,26 @@ inline std::string SourcePath(const std::string& relative) {
   return std::string(FILLCAST_SOURCE_DIR) + "/" + relative;
 }
 
+// The four lines every reader test's plan starts with: its name, the shipped
+// coastal-ridge site model, a one-year campaign and a turbine.
+inline std::string PlanHead(const std::string& name) {
+  return "name: " + name +
+         "\n"
+         "site_model: coastal-ridge.yaml\n"
+         "campaign: {start: 2027-03-01, deadline: 2028-03-01}\n"
+         "turbine: {name: T1, cut_in_ms: 3, rated_ms: 11, cut_out_ms: 25}\n";
+}
+
+// Eight lines: PlanHead and a production matrix of four wind bins (lines
+// 5-8). A section under test follows from line 9.
+inline std::string BasePlan(const std::string& name) {
+  return PlanHead(name) +
+         "capture_matrix:\n"
+         "  production:\n"
+         "    wind_bins_ms: {from: 4, to: 8, width: 1}\n"
+         "    min_records: 10\n";
+}
+
 // A plan text read as "plan.yaml" next to the shipped site models.
 inline Plan ParseTestPlan(const std::string& text) {
   return ParsePlan(text, "plan.yaml", SourcePath("site-models"));

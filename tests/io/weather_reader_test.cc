@@ -18,14 +18,7 @@ using reader_test::SourcePath;
 using reader_test::TestPlanError;
 
 const std::string kPlan =
-    "name: Test plan\n"
-    "site_model: coastal-ridge.yaml\n"
-    "campaign: {start: 2027-03-01, deadline: 2028-03-01}\n"
-    "turbine: {name: T1, cut_in_ms: 3, rated_ms: 11, cut_out_ms: 25}\n"
-    "capture_matrix:\n"
-    "  production:\n"
-    "    wind_bins_ms: {from: 4, to: 8, width: 1}\n"
-    "    min_records: 10\n"
+    reader_test::BasePlan("Test plan") +
     "weather:\n"
     "  source: replay\n"
     "  series: SERIES\n"
