@@ -6,7 +6,7 @@
 // feature that the shorter path leaves out or hands back: curtailment in
 // force, manual tests with the crew on site, production starts and stops,
 // turbine and acquisition outages, planned outages, parked records counted
-// during outages, replayed weather.
+// during outages, replayed weather, a campaign continued from a log.
 #include <gtest/gtest.h>
 
 #include <memory>
@@ -29,14 +29,21 @@ Plan DemoPlan(const std::string& file) {
   return plan;
 }
 
-void ExpectSameRuns(const Plan& plan, const std::string& what) {
+// state: continue a campaign from it (null: from the plan's start).
+void ExpectSameRuns(const Plan& plan, const std::string& what,
+                    const CampaignState* state = nullptr) {
   const Simulator sim(plan);
   for (uint64_t seed : {1u, 7u}) {
     for (uint64_t run = 0; run < 4; ++run) {
       RunResult fast, full;
       std::vector<TracedRecord> records;
-      sim.Run(seed, run, &fast);
-      sim.Trace(seed, run, &full, &records);
+      if (state != nullptr) {
+        sim.Run(seed, run, *state, &fast);
+        sim.Trace(seed, run, *state, &full, &records);
+      } else {
+        sim.Run(seed, run, &fast);
+        sim.Trace(seed, run, &full, &records);
+      }
       const std::string where =
           what + ", seed " + std::to_string(seed) + ", run " + std::to_string(run);
       EXPECT_EQ(fast.completion_step, full.completion_step) << where;
@@ -72,6 +79,21 @@ TEST(PlainStretchTest, ParkedCountsDuringOutagesAgreeWithTheFullLoop) {
   Plan plan = DemoPlan("plan.yaml");
   plan.parked_counts_during_outage = true;
   ExpectSameRuns(plan, "parked counts during outages");
+}
+
+// A campaign continued from logged counts and the latest wind, half-way
+// through its first summer (curtailment in force at night), with some cells
+// full already and others part-way.
+TEST(PlainStretchTest, ContinuedCampaignAgreesWithTheFullLoop) {
+  const Plan plan = DemoPlan("plan.yaml");
+  CampaignState state;
+  state.elapsed_days = 120;
+  const int cells = Simulator(plan).cell_count();
+  for (int c = 0; c < cells; ++c) state.counts.push_back(static_cast<uint32_t>(c % 12));
+  state.has_last_wind = true;
+  state.last_speed_ms = 9.5;
+  state.last_direction_deg = 250;
+  ExpectSameRuns(plan, "continued campaign", &state);
 }
 
 // Replayed weather (the open Irish daily data, tests/data/irish-daily-wind)

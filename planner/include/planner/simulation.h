@@ -115,6 +115,10 @@ class Simulator {
   // `state` has full_step = the as-of step.
   void Run(uint64_t seed, uint64_t run_index, const CampaignState& state,
            RunResult* out) const;
+  // Trace's counterpart for a continued campaign: the records from the as-of
+  // day on (tests only).
+  void Trace(uint64_t seed, uint64_t run_index, const CampaignState& state,
+             RunResult* out, std::vector<TracedRecord>* records) const;
 
   int cell_count() const;
   int64_t deadline_steps() const;

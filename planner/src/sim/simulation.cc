@@ -854,6 +854,14 @@ void Simulator::Run(uint64_t seed, uint64_t run_index, const CampaignState& stat
   loop.Run(&state);
 }
 
+void Simulator::Trace(uint64_t seed, uint64_t run_index, const CampaignState& state,
+                      RunResult* out, std::vector<TracedRecord>* records) const {
+  RunLoop loop(*model_, seed, run_index, out);
+  records->clear();
+  loop.trace_ = records;
+  loop.Run(&state);
+}
+
 int Simulator::cell_count() const { return static_cast<int>(model_->required.size()); }
 int64_t Simulator::deadline_steps() const { return model_->deadline_steps; }
 int64_t Simulator::horizon_steps() const { return model_->horizon_steps; }
