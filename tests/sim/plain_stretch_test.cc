@@ -19,6 +19,7 @@
 #include "planner/plan_reader.h"
 #include "planner/replay.h"
 #include "planner/simulation.h"
+#include "sim/test_plans.h"
 
 namespace planner {
 namespace {
@@ -79,6 +80,21 @@ TEST(PlainStretchTest, ParkedCountsDuringOutagesAgreeWithTheFullLoop) {
   Plan plan = DemoPlan("plan.yaml");
   plan.parked_counts_during_outage = true;
   ExpectSameRuns(plan, "parked counts during outages");
+}
+
+// Parked records counted during long turbine outages, in the only cell: the
+// matrix mostly completes while the turbine is down, and the run must stop
+// at that record (the deadline has passed) whichever loop counts it.
+TEST(PlainStretchTest, CompletionDuringAnOutageAgreesWithTheFullLoop) {
+  Plan plan = testing_plans::SingleCellPlan(8.0, 2.0, 0.0, 60.0, 300);
+  plan.matrix.cells[0].state = OperatingState::kParked;
+  plan.matrix.grids[0].state = OperatingState::kParked;
+  plan.turbine_outages = testing_plans::Outages(20, 40);
+  plan.parked_counts_during_outage = true;
+  // Persistent direction and wind, so that stretches are long.
+  plan.site.sector_persistence = 0.99;
+  plan.site.wind_persistence_h = 12;
+  ExpectSameRuns(plan, "completion during an outage");
 }
 
 // A campaign continued from logged counts and the latest wind, half-way

@@ -764,7 +764,9 @@ void RunLoop::RunSteps(int64_t first_day, int64_t step, RunState& s, WeatherStat
             k = PlainStretch<false, kReplay>(k, end, day_step, w, lim, tallies, s,
                                              &transition);
           } else {  // turbine down, parked records counted: the full steps
-            for (; k < end; ++k) Step<kTrace, kReplay>(day_step + k, k, w, lim, tallies, s);
+            // (until something is due: a count may complete the matrix)
+            for (; k < end && day_step + k < s.next_event; ++k)
+              Step<kTrace, kReplay>(day_step + k, k, w, lim, tallies, s);
           }
           if (transition) {  // a production start or stop: the full step
             Step<kTrace, kReplay>(day_step + k, k, w, lim, tallies, s);
