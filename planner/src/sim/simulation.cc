@@ -85,13 +85,26 @@ struct StepLimits {
   bool parked_counts_during_outage;
 };
 
+struct RunState;
+
 // What every step updates, kept in registers through a day and written back
 // to RunState at the day's end and when the run stops.
 struct DayTallies {
+  explicit DayTallies(const RunState& s);
+  void SaveTo(RunState& s) const;
   double speed_sum_ms;
   int64_t curtailed_steps;
   bool high_wind_stop;
 };
+
+// Cut-out hysteresis: whether the turbine is stopped for high wind after a
+// record of `speed_ms`, given whether it was before. Stopped at cut-out,
+// restarted below the restart speed.
+inline bool HighWindStop(bool stopped, double speed_ms, const StepLimits& lim) {
+  if (speed_ms >= lim.cut_out_ms) return true;
+  if (stopped && speed_ms < lim.restart_ms) return false;
+  return stopped;
+}
 
 // The mutable state of one run. Run() keeps it in a local so that the
 // compiler can hold much of it in registers through the hot loop.
@@ -128,6 +141,17 @@ struct RunState {
   int64_t curtailed_steps = 0;
   double speed_sum_ms = 0;
 };
+
+DayTallies::DayTallies(const RunState& s)
+    : speed_sum_ms(s.speed_sum_ms),
+      curtailed_steps(s.curtailed_steps),
+      high_wind_stop(s.high_wind_stop) {}
+
+void DayTallies::SaveTo(RunState& s) const {
+  s.speed_sum_ms = speed_sum_ms;
+  s.curtailed_steps = curtailed_steps;
+  s.high_wind_stop = high_wind_stop;
+}
 
 class RunLoop {
  public:
@@ -186,6 +210,9 @@ class RunLoop {
   template <bool kTrace, bool kReplay>
   void Step(int64_t step, int k, const DayWeather& w, const StepLimits& lim,
             DayTallies& day, RunState& s);
+  template <bool kReplay>
+  int Stretch(int k, int end, int64_t day_step, const DayWeather& w,
+              const StepLimits& lim, DayTallies& day, RunState& s);
   template <bool kCounting, bool kReplay>
   int PlainStretch(int k, int end, int64_t day_step, const DayWeather& w,
                    const StepLimits& lim, DayTallies& day, RunState& s,
@@ -198,9 +225,9 @@ class RunLoop {
   bool TryManualTest(double speed_ms, bool valid, int64_t step, RunState& s);
   int CountEvent(int type, double speed_ms, int64_t step, RunState& s);
   template <bool kReplay>
-  int CellOf(int state, double speed_ms, double measured_log_ti, int64_t step,
-             RunState& s);
-  void Count(int cell, int64_t step, RunState& s);
+  int CellOf(int state, double speed_ms, const DayWeather& weather, int k,
+             int64_t step, RunState& s);
+  bool Count(int cell, int64_t step, RunState& s);
   uint32_t NextMark(int cell, uint32_t n) const;
   void ReachMark(int cell, int64_t step, RunState& s);
   void Stop(int64_t steps, const RunState& s);
@@ -262,9 +289,12 @@ void RunLoop::RefillTiNormals() {
 }
 
 // A cell's count goes up by one. Only when it reaches the cell's next mark
-// (its relaxed or its full minimum) is there more to do.
-inline void RunLoop::Count(int cell, int64_t step, RunState& s) {
-  if (++counts_[cell] == next_mark_[cell]) ReachMark(cell, step, s);
+// (its relaxed or its full minimum) is there more to do; true then (what is
+// due may have changed: a completed matrix stops the run).
+inline bool RunLoop::Count(int cell, int64_t step, RunState& s) {
+  if (++counts_[cell] != next_mark_[cell]) return false;
+  ReachMark(cell, step, s);
+  return true;
 }
 
 // The next count of `cell` above n at which something happens (0: none; a
@@ -293,8 +323,8 @@ uint32_t RunLoop::NextMark(int cell, uint32_t n) const {
 }
 
 template <bool kReplay>
-inline int RunLoop::CellOf(int state, double speed_ms, double measured_log_ti,
-                           int64_t step, RunState& s) {
+inline int RunLoop::CellOf(int state, double speed_ms, const DayWeather& weather,
+                           int k, int64_t step, RunState& s) {
   const CompiledGrid& g = m_.grids[state];
   if (!g.present) return -1;
   const int w = g.wind.Find(speed_ms);
@@ -304,7 +334,8 @@ inline int RunLoop::CellOf(int state, double speed_ms, double measured_log_ti,
   s.x_ti = m_.ti_ar1.Advance(s.x_ti, step - s.ti_step, TiNormal());
   s.ti_step = step;
   const int row = g.ti_row[w];
-  const double log_ti = kReplay && !std::isnan(measured_log_ti) ? measured_log_ti
+  const double measured = kReplay ? weather.measured_log_ti[k] : NAN;
+  const double log_ti = !std::isnan(measured) ? measured
                         : row >= 0 ? m_.ti_law.RowSample(row, s.x_ti)
                                    : m_.ti_law.LogSample(speed_ms, s.x_ti);
   if (trace_ != nullptr) traced_ti_ = std::exp(log_ti), traced_ti_step_ = step;
@@ -422,12 +453,7 @@ inline void RunLoop::Step(int64_t step, int k, const DayWeather& w, const StepLi
   const double speed = w.speed_ms[k];
   day.speed_sum_ms += speed;
 
-  // Turbine state with cut-out hysteresis.
-  if (speed >= lim.cut_out_ms) {
-    day.high_wind_stop = true;
-  } else if (day.high_wind_stop && speed < lim.restart_ms) {
-    day.high_wind_stop = false;
-  }
+  day.high_wind_stop = HighWindStop(day.high_wind_stop, speed, lim);
   Curtail curtail = kNotCurtailed;
   if (const uint32_t rules = s.hour_rules & s.direction_rules; rules != 0) {
     curtail = CurtailmentAt(speed, rules);
@@ -450,7 +476,7 @@ inline void RunLoop::Step(int64_t step, int k, const DayWeather& w, const StepLi
       return;
     }
     if (quality_ok && (producing || s.turbine_up || lim.parked_counts_during_outage)) {
-      cell = CellOf<kReplay>(state, speed, kReplay ? w.measured_log_ti[k] : 0.0, step, s);
+      cell = CellOf<kReplay>(state, speed, w, k, step, s);
       if (cell >= 0) Count(cell, step, s);
     }
   }
@@ -675,12 +701,7 @@ int RunLoop::PlainStretch(int k, int end, int64_t day_step, const DayWeather& w,
   const bool tests_possible = kCounting && s.crew_here && s.tests_open > 0;
   for (; k < end; ++k) {
     const double speed = w.speed_ms[k];
-    bool stop = high_wind_stop;
-    if (speed >= lim.cut_out_ms) {
-      stop = true;
-    } else if (stop && speed < lim.restart_ms) {
-      stop = false;
-    }
+    const bool stop = HighWindStop(high_wind_stop, speed, lim);
     const bool producing = turbine_up && !stop && speed >= lim.cut_in_ms;
     if (producing != producing_before) {
       *transition = true;
@@ -696,10 +717,8 @@ int RunLoop::PlainStretch(int k, int end, int64_t day_step, const DayWeather& w,
         break;
       }
       if (!w.quality_ok[k]) continue;
-      const int cell = CellOf<kReplay>(producing ? 0 : 1, speed,
-                                       kReplay ? w.measured_log_ti[k] : 0.0, step, s);
-      if (cell >= 0 && ++counts_[cell] == next_mark_[cell]) {
-        ReachMark(cell, step, s);
+      const int cell = CellOf<kReplay>(producing ? 0 : 1, speed, w, k, step, s);
+      if (cell >= 0 && Count(cell, step, s)) {
         ++k;
         break;
       }
@@ -707,6 +726,30 @@ int RunLoop::PlainStretch(int k, int end, int64_t day_step, const DayWeather& w,
   }
   day.speed_sum_ms = speed_sum_ms;
   day.high_wind_stop = high_wind_stop;
+  return k;
+}
+
+// Steps from k of a stretch without a curtailment rule in force, up to end
+// (where the crew's presence or the rules change, or something is due): the
+// plain loop that fits the outage and direction states, then the full step
+// where it stopped at a production start or stop. Returns the next step.
+template <bool kReplay>
+int RunLoop::Stretch(int k, int end, int64_t day_step, const DayWeather& w,
+                     const StepLimits& lim, DayTallies& day, RunState& s) {
+  bool transition = false;
+  if (s.recordable && s.turbine_up) {
+    k = PlainStretch<true, kReplay>(k, end, day_step, w, lim, day, s, &transition);
+  } else if (!s.recordable || !lim.parked_counts_during_outage) {
+    k = PlainStretch<false, kReplay>(k, end, day_step, w, lim, day, s, &transition);
+  } else {  // turbine down, parked records counted: the full steps
+    // (until something is due: a count may complete the matrix)
+    for (; k < end && day_step + k < s.next_event; ++k)
+      Step<false, kReplay>(day_step + k, k, w, lim, day, s);
+  }
+  if (transition) {  // a production start or stop: the full step
+    Step<false, kReplay>(day_step + k, k, w, lim, day, s);
+    ++k;
+  }
   return k;
 }
 
@@ -740,7 +783,7 @@ void RunLoop::RunSteps(int64_t first_day, int64_t step, RunState& s, WeatherStat
                          ? plain_end[h + 1]
                          : h + 1;
     }
-    DayTallies tallies{s.speed_sum_ms, s.curtailed_steps, s.high_wind_stop};
+    DayTallies tallies(s);
     for (int k = 0; k < kStepsPerDay;) {
       const int hour = k / kStepsPerHour;
       s.hour_rules = m_.curtail_time_mask[month][hour];
@@ -748,30 +791,14 @@ void RunLoop::RunSteps(int64_t first_day, int64_t step, RunState& s, WeatherStat
       for (const int hour_end = k - k % kStepsPerHour + kStepsPerHour; k < hour_end;) {
         step = day_step + k;
         if (step >= s.next_event && !OnEvents(step, day_step, change, s)) {
-          s.speed_sum_ms = tallies.speed_sum_ms;
-          s.curtailed_steps = tallies.curtailed_steps;
+          tallies.SaveTo(s);
           return Stop(step, s);
         }
         // (An outage state may be due again at once: then no stretch.)
         const int end = static_cast<int>(std::min<int64_t>(
             plain_end[hour] * kStepsPerHour, s.next_event - day_step));
         if (!kTrace && s.hour_rules == 0 && end > k) {
-          bool transition = false;
-          if (s.recordable && s.turbine_up) {
-            k = PlainStretch<true, kReplay>(k, end, day_step, w, lim, tallies, s,
-                                            &transition);
-          } else if (!s.recordable || !lim.parked_counts_during_outage) {
-            k = PlainStretch<false, kReplay>(k, end, day_step, w, lim, tallies, s,
-                                             &transition);
-          } else {  // turbine down, parked records counted: the full steps
-            // (until something is due: a count may complete the matrix)
-            for (; k < end && day_step + k < s.next_event; ++k)
-              Step<kTrace, kReplay>(day_step + k, k, w, lim, tallies, s);
-          }
-          if (transition) {  // a production start or stop: the full step
-            Step<kTrace, kReplay>(day_step + k, k, w, lim, tallies, s);
-            ++k;
-          }
+          k = Stretch<kReplay>(k, end, day_step, w, lim, tallies, s);
           break;  // k may be hours on: set the hour's rules and crew anew
         }
         Step<kTrace, kReplay>(step, k, w, lim, tallies, s);
@@ -779,9 +806,7 @@ void RunLoop::RunSteps(int64_t first_day, int64_t step, RunState& s, WeatherStat
       }
     }
     step = day_step + kStepsPerDay;
-    s.speed_sum_ms = tallies.speed_sum_ms;
-    s.curtailed_steps = tallies.curtailed_steps;
-    s.high_wind_stop = tallies.high_wind_stop;
+    tallies.SaveTo(s);
   }
   Stop(step, s);
 }
