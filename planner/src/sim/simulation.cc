@@ -7,6 +7,7 @@
 #include "planner/calendar.h"
 #include "planner/random_stream.h"
 #include "sim/compiled_model.h"
+#include "sim/day_weather.h"
 #include "sim/outage_windows.h"
 #include "sim/ziggurat_normal.h"
 
@@ -29,14 +30,6 @@ double NormalScoreOfSpeed(double unit_speed, double shape) {
   return -boost::math::quantile(boost::math::normal_distribution<double>(), p);
 }
 
-inline double HighUniform(uint64_t r) { return static_cast<double>(r >> 32) * 0x1.0p-32; }
-// The two 16-bit decisions of a step's weather draw (see RunLoop::Step).
-inline uint32_t KeepBits(uint64_t r) { return static_cast<uint32_t>(r >> 32) & 0xFFFFu; }
-inline uint32_t QualityBits(uint64_t r) { return static_cast<uint32_t>(r >> 48); }
-inline double LowUniform(uint64_t r) {
-  return static_cast<double>(r & 0xFFFFFFFFULL) * 0x1.0p-32;
-}
-
 inline bool InSpans(const std::vector<Bin>& spans, double u) {
   for (const Bin& b : spans) {
     if (u >= b.lo && u < b.hi) return true;
@@ -46,37 +39,6 @@ inline bool InSpans(const std::vector<Bin>& spans, double u) {
 
 // Curtailment outcome of a step.
 enum Curtail : int { kNotCurtailed = 0, kReduce = 1, kStop = 2 };
-
-// The weather's own state between days (the weather does not depend on the
-// turbine or the records, so a day of it is computed ahead; see DayWeather).
-struct WeatherState {
-  double z = 0;  // latent wind-speed normal
-  double sector_scale_ms = 0;
-  const SpeedTransform* transform = nullptr;
-  // Replay: the slot of the measured series in use, its speed and direction,
-  // and its ln TI (NaN: none measured; TI then comes from the TI model).
-  int64_t replay_slot = -1;
-  double replay_speed_ms = 0;
-  float replay_direction_deg = -1;
-  double measured_log_ti = NAN;
-  int64_t block_start = 0;  // replay: measured day of the current block's first day
-};
-
-// A new direction from step `k` of a day on.
-struct DirectionChange {
-  int k = kStepsPerDay;  // kStepsPerDay ends a day's list
-  int sector = 0;
-  double direction_u = 0;
-};
-
-// One day of weather, made in a tight loop of its own before the turbine and
-// the records of the day are worked out from it.
-struct DayWeather {
-  double speed_ms[kStepsPerDay];
-  bool quality_ok[kStepsPerDay];  // the record passes the quality check
-  double measured_log_ti[kStepsPerDay];  // replay only
-  DirectionChange changes[kStepsPerDay + 1];  // in step order, then the end mark
-};
 
 // The model's per-step limits, copied into a local of the day loop so that
 // they stay in registers (stores through RunState could otherwise alias them).
@@ -181,14 +143,6 @@ class RunLoop {
   template <bool kTrace, bool kReplay>
   void RunSteps(int64_t first_day, int64_t step, RunState& s, WeatherState& ws,
                 Engine& weather);
-  void FillWeather(int64_t day, DayWeather& w, WeatherState& ws, Engine& weather) const;
-  void FillReplay(int64_t day, int64_t first_day, DayWeather& w, WeatherState& ws,
-                  Engine& weather, Engine& blocks) const;
-  void NewSector(uint64_t bits, int k, DirectionChange& change, WeatherState& ws) const;
-  void ReplaySlot(int64_t slot, int k, DirectionChange* changes, int& count,
-                  WeatherState& ws) const;
-  int64_t DrawReplayBlock(int64_t day, Engine& e) const;
-  DirectionChange DirectionOfDegrees(double direction_deg) const;
   bool OnEvents(int64_t step, int64_t day_step, const DirectionChange*& change,
                 RunState& s);
   void ApplyState(const CampaignState& state, int64_t start_step, RunState& s,
@@ -539,118 +493,13 @@ void RunLoop::ApplyState(const CampaignState& state, int64_t start_step, RunStat
     deadline_passed_ = true;
   }
   if (!state.has_last_wind || m_.replay) return;
-  const DirectionChange d = DirectionOfDegrees(state.last_direction_deg);
+  const DirectionChange d = DirectionOfDegrees(m_, state.last_direction_deg);
   SetDirection(d.sector, d.direction_u, start_step, s);
   const int64_t day = std::max<int64_t>(0, start_step / kStepsPerDay - 1);
   const double scale = m_.sector_scale_ms[d.sector] *
                        m_.monthly_factors[m_.day_month[day]] *
                        year_factor_[m_.day_year[day]] * m_.hourly_factors[23];
   ws.z = NormalScoreOfSpeed(state.last_speed_ms / scale, m_.sector_shape[d.sector]);
-}
-
-// The sector and the position in it of a direction in degrees.
-DirectionChange RunLoop::DirectionOfDegrees(double direction_deg) const {
-  const int sectors = static_cast<int>(m_.sector_scale_ms.size());
-  const double shifted =
-      std::fmod(direction_deg / m_.sector_width_deg + 0.5 + 10.0 * sectors,
-                static_cast<double>(sectors));
-  DirectionChange d;
-  d.sector = std::min(sectors - 1, static_cast<int>(shifted));
-  d.direction_u = shifted - d.sector;
-  return d;
-}
-
-// A day of the parametric weather. One 64-bit draw per step: its low 32 bits
-// make the wind speed's normal innovation, bits 32-47 decide whether the
-// sector is drawn anew (then SplitMix64 of the draw supplies the new sector
-// and direction), bits 48-63 are the quality check's.
-void RunLoop::FillWeather(int64_t day, DayWeather& w, WeatherState& ws,
-                          Engine& weather) const {
-  Engine e = weather;  // a local copy stays in registers
-  const double day_scale =
-      m_.monthly_factors[m_.day_month[day]] * year_factor_[m_.day_year[day]];
-  const uint32_t keep_threshold = m_.keep_threshold;
-  const uint32_t reject_threshold = m_.reject_threshold;
-  const LatentAr1 ar1 = m_.wind_ar1;
-  double z = ws.z;
-  const SpeedTransform* transform = ws.transform;
-  int changes = 0;
-  for (int hour = 0, k = 0; hour < 24; ++hour) {
-    const double hour_scale = day_scale * m_.hourly_factors[hour];
-    double speed_scale = ws.sector_scale_ms * hour_scale;
-    for (int i = 0; i < kStepsPerHour; ++i, ++k) {
-      const uint64_t r = e();
-      if (KeepBits(r) >= keep_threshold) {
-        NewSector(SplitMix64(r), k, w.changes[changes++], ws);
-        speed_scale = ws.sector_scale_ms * hour_scale;
-        transform = ws.transform;
-      }
-      z = ar1.Next(z, ZigguratNormal::FromWord(static_cast<uint32_t>(r)));
-      w.speed_ms[k] = speed_scale * (*transform)(z);
-      w.quality_ok[k] = QualityBits(r) >= reject_threshold;
-    }
-  }
-  w.changes[changes] = DirectionChange();
-  ws.z = z;
-  weather = e;
-}
-
-// A new draw of the sector (even of the same one) is a new direction in it,
-// from step k of the day on. Both uniforms come from one 64-bit word.
-[[gnu::noinline, gnu::cold]] void RunLoop::NewSector(uint64_t bits, int k,
-                                                     DirectionChange& change,
-                                                     WeatherState& ws) const {
-  change.k = k;
-  change.sector = m_.sector_chain.frequencies.Draw(HighUniform(bits));
-  change.direction_u = LowUniform(bits);
-  ws.sector_scale_ms = m_.sector_scale_ms[change.sector];
-  ws.transform = &m_.speed_transform[change.sector];
-}
-
-// A day of replayed weather: blocks of block_days from the plan's start, each
-// a measured block drawn from its own stream; a step's slot is the measured
-// record that covers it. The weather stream still gives one draw per step,
-// for the quality check alone.
-void RunLoop::FillReplay(int64_t day, int64_t first_day, DayWeather& w,
-                         WeatherState& ws, Engine& weather, Engine& blocks) const {
-  const int64_t block_days = m_.replay->options.block_days;
-  const int64_t per_day = m_.replay->records_per_day;
-  if (day == first_day || day % block_days == 0)
-    ws.block_start = DrawReplayBlock(day - day % block_days, blocks);
-  const int64_t day_slot = (ws.block_start + day % block_days) * per_day;
-  int changes = 0;
-  for (int k = 0; k < kStepsPerDay; ++k) {
-    const uint64_t r = weather();
-    const int64_t slot = day_slot + k * per_day / kStepsPerDay;
-    if (slot != ws.replay_slot) ReplaySlot(slot, k, w.changes, changes, ws);
-    w.speed_ms[k] = ws.replay_speed_ms;
-    w.measured_log_ti[k] = ws.measured_log_ti;
-    w.quality_ok[k] = QualityBits(r) >= m_.reject_threshold;
-  }
-  w.changes[changes] = DirectionChange();
-}
-
-// Replay: the measured record of `slot` from step k of the day on.
-void RunLoop::ReplaySlot(int64_t slot, int k, DirectionChange* changes, int& count,
-                         WeatherState& ws) const {
-  const WeatherReplay& r = *m_.replay;
-  ws.replay_slot = slot;
-  ws.replay_speed_ms = r.speed_ms[slot];
-  ws.measured_log_ti = r.log_ti[slot];
-  const float direction = r.direction_deg[slot];
-  if (r.has_direction && direction != ws.replay_direction_deg) {
-    ws.replay_direction_deg = direction;
-    changes[count] = DirectionOfDegrees(direction);
-    changes[count++].k = k;
-  }
-}
-
-// Replay: the first measured day of the block that starts at simulated `day`,
-// drawn uniformly from the pool of that day of the year.
-int64_t RunLoop::DrawReplayBlock(int64_t day, Engine& e) const {
-  const std::vector<int32_t>& pool = m_.replay->pool[m_.day_of_year[day]];
-  const auto pick = static_cast<size_t>(UniformDouble(e) * pool.size());
-  return pool[std::min(pick, pool.size() - 1)];
 }
 
 void RunLoop::Run(const CampaignState* state) {
@@ -763,9 +612,10 @@ void RunLoop::RunSteps(int64_t first_day, int64_t step, RunState& s, WeatherStat
                        m_.parked_counts_during_outage};
   for (int64_t day = first_day; day < days; ++day) {
     if constexpr (kReplay) {
-      FillReplay(day, first_day, w, ws, weather, blocks);
+      FillReplay(m_, day, first_day, w, ws, weather, blocks);
     } else {
-      FillWeather(day, w, ws, weather);
+      FillWeather(m_, m_.monthly_factors[m_.day_month[day]] * year_factor_[m_.day_year[day]],
+                  w, ws, weather);
     }
     const int64_t day_step = step;
     const DirectionChange* change = w.changes;
