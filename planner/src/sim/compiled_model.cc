@@ -99,6 +99,26 @@ void CompileWeather(const SiteModel& site, const std::vector<AngleRange>& valid,
   m->ti_law = TiLaw(site.turbulence);
 }
 
+// The TI bins of a grid on the latent normal's scale for a wind bin whose TI
+// row is `row` (CompiledGrid::LatentEdges; unusable where the row varies
+// within the wind bin, the spread is 0, or the TI bins are many or gapped).
+CompiledGrid::LatentEdges LatentTiEdges(const CompiledGrid& g, const TiLaw& law, int row) {
+  CompiledGrid::LatentEdges e;
+  const int n = g.ti_bins;
+  if (row < 0 || n == 0 || n > CompiledGrid::kLatentBins) return e;
+  const double mu = law.RowMu(row), s = law.RowSigma(row);
+  if (!(s > 0.0)) return e;
+  for (int t = 1; t < n; ++t) {
+    if (g.log_ti_lo[t] != g.log_ti_hi[t - 1]) return e;
+  }
+  const auto latent = [&](double log_ti) { return (log_ti - mu) / s; };
+  for (int t = 1; t < n; ++t) e.start[t - 1] = latent(g.log_ti_lo[t]);
+  e.lo = latent(g.log_ti_lo[0]);  // -infinity for a first bin from 0 %
+  e.hi = latent(g.log_ti_hi[n - 1]);
+  e.usable = true;
+  return e;
+}
+
 void CompileMatrix(const CaptureMatrix& matrix, CompiledModel* m) {
   for (const StateGrid& g : matrix.grids) {
     CompiledGrid& cg = m->grids[static_cast<int>(g.state)];
@@ -117,6 +137,7 @@ void CompileMatrix(const CaptureMatrix& matrix, CompiledModel* m) {
     cg.ti_half = size / 2;
     cg.cell_index = g.cell_index;
     for (const Bin& w : g.wind_bins_ms) cg.ti_row.push_back(m->ti_law.RowOfBin(w));
+    for (const int row : cg.ti_row) cg.latent_edges.push_back(LatentTiEdges(cg, m->ti_law, row));
   }
   for (const Cell& c : matrix.cells) {
     m->required.push_back(static_cast<uint32_t>(c.required));

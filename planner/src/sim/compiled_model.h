@@ -40,6 +40,25 @@ struct CompiledGrid {
     for (int h = ti_half; h > 0; h >>= 1) above += log_ti >= ti_search_lo[above + h] ? h : 0;
     return (log_ti >= log_ti_lo[above] && log_ti < log_ti_hi[above]) ? above : -1;
   }
+
+  // Per wind bin: the TI bins' edges on the scale of the latent TI normal x,
+  // where one TI table row holds the whole wind bin (ln TI = mu + s x with
+  // s > 0, so ln TI >= ln e exactly when x >= (ln e - mu) / s) and the TI bins
+  // are at most kLatentBins, each starting where the one before ends. Then a
+  // record's TI bin takes three comparisons and no ln TI is made.
+  static constexpr int kLatentBins = 4;
+  struct LatentEdges {
+    bool usable = false;
+    // Starts of TI bins 1..3 (+infinity past the last bin), the first bin's
+    // start and the last bin's end.
+    double start[kLatentBins - 1] = {HUGE_VAL, HUGE_VAL, HUGE_VAL};
+    double lo = -HUGE_VAL, hi = HUGE_VAL;
+    int Bin(double x) const {
+      const int t = (x >= start[0]) + (x >= start[1]) + (x >= start[2]);
+      return x >= lo && x < hi ? t : -1;
+    }
+  };
+  std::vector<LatentEdges> latent_edges;  // per wind bin
 };
 
 // TI given V: lognormal (mu, s) tabulated on a speed grid (IEC NTM) or looked
@@ -65,6 +84,8 @@ class TiLaw {
   }
   // The same for a speed in a wind bin that one table row holds.
   double RowSample(int row, double x) const { return mu_[row] + s_[row] * x; }
+  double RowMu(int row) const { return mu_[row]; }
+  double RowSigma(int row) const { return s_[row]; }
   // The table row that holds every speed of wind_ms, else -1 (also for the
   // IEC model, whose parameters vary with the speed).
   int RowOfBin(const Bin& wind_ms) const;

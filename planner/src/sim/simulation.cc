@@ -287,6 +287,14 @@ inline int RunLoop::CellOf(int state, double speed_ms, const DayWeather& weather
   if (ti_bins == 0) return g.cell_index[w];
   s.x_ti = m_.ti_ar1.Advance(s.x_ti, step - s.ti_step, TiNormal());
   s.ti_step = step;
+  if (!kReplay || std::isnan(weather.measured_log_ti[k])) {
+    if (const CompiledGrid::LatentEdges& e = g.latent_edges[w]; e.usable) {
+      if (trace_ != nullptr)
+        traced_ti_ = std::exp(m_.ti_law.RowSample(g.ti_row[w], s.x_ti)), traced_ti_step_ = step;
+      const int t = e.Bin(s.x_ti);
+      return t < 0 ? -1 : g.cell_index[w * ti_bins + t];
+    }
+  }
   const int row = g.ti_row[w];
   const double measured = kReplay ? weather.measured_log_ti[k] : NAN;
   const double log_ti = !std::isnan(measured) ? measured
