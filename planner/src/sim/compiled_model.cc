@@ -102,7 +102,8 @@ void CompileWeather(const SiteModel& site, const std::vector<AngleRange>& valid,
 // The TI bins of a grid on the latent normal's scale for a wind bin whose TI
 // row is `row` (CompiledGrid::LatentEdges; unusable where the row varies
 // within the wind bin, the spread is 0, or the TI bins are many or gapped).
-CompiledGrid::LatentEdges LatentTiEdges(const CompiledGrid& g, const TiLaw& law, int row) {
+CompiledGrid::LatentEdges LatentTiEdges(const CompiledGrid& g, const TiLaw& law,
+                                        int row) {
   CompiledGrid::LatentEdges e;
   const int n = g.ti_bins;
   if (row < 0 || n == 0 || n > CompiledGrid::kLatentBins) return e;
@@ -137,7 +138,8 @@ void CompileMatrix(const CaptureMatrix& matrix, CompiledModel* m) {
     cg.ti_half = size / 2;
     cg.cell_index = g.cell_index;
     for (const Bin& w : g.wind_bins_ms) cg.ti_row.push_back(m->ti_law.RowOfBin(w));
-    for (const int row : cg.ti_row) cg.latent_edges.push_back(LatentTiEdges(cg, m->ti_law, row));
+    for (const int row : cg.ti_row)
+      cg.latent_edges.push_back(LatentTiEdges(cg, m->ti_law, row));
   }
   for (const Cell& c : matrix.cells) {
     m->required.push_back(static_cast<uint32_t>(c.required));

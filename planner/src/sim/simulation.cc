@@ -289,8 +289,10 @@ inline int RunLoop::CellOf(int state, double speed_ms, const DayWeather& weather
   s.ti_step = step;
   if (!kReplay || std::isnan(weather.measured_log_ti[k])) {
     if (const CompiledGrid::LatentEdges& e = g.latent_edges[w]; e.usable) {
-      if (trace_ != nullptr)
-        traced_ti_ = std::exp(m_.ti_law.RowSample(g.ti_row[w], s.x_ti)), traced_ti_step_ = step;
+      if (trace_ != nullptr) {
+        traced_ti_ = std::exp(m_.ti_law.RowSample(g.ti_row[w], s.x_ti));
+        traced_ti_step_ = step;
+      }
       const int t = e.Bin(s.x_ti);
       return t < 0 ? -1 : g.cell_index[w * ti_bins + t];
     }
