@@ -46,7 +46,7 @@ struct CompiledGrid {
   // s > 0, so ln TI >= ln e exactly when x >= (ln e - mu) / s) and the TI bins
   // are at most kLatentBins, each starting where the one before ends. Then a
   // record's TI bin takes three comparisons and no ln TI is made.
-  static constexpr int kLatentBins = 4;
+  static constexpr int kLatentBins = 4;  // Bin below makes three comparisons
   struct LatentEdges {
     bool usable = false;
     // Starts of TI bins 1..3 (+infinity past the last bin), the first bin's

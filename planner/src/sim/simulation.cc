@@ -287,6 +287,9 @@ inline int RunLoop::CellOf(int state, double speed_ms, const DayWeather& weather
   if (ti_bins == 0) return g.cell_index[w];
   s.x_ti = m_.ti_ar1.Advance(s.x_ti, step - s.ti_step, TiNormal());
   s.ti_step = step;
+  // The latent-edge path returns early, before the general one. (Merging the
+  // two through a shared ln TI helper measured 169 to 179 instructions per
+  // step against 167: the compiler then keeps less of the loop in registers.)
   if (!kReplay || std::isnan(weather.measured_log_ti[k])) {
     if (const CompiledGrid::LatentEdges& e = g.latent_edges[w]; e.usable) {
       if (trace_ != nullptr) {
