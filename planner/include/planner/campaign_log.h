@@ -100,9 +100,18 @@ class CampaignLog {
   CampaignLog(const CampaignLog&) = delete;
   CampaignLog& operator=(const CampaignLog&) = delete;
 
-  // Adds the rows of `file` as described above.
+  // Adds the rows of `file` as described above, in one transaction.
   IngestReport Ingest(const std::string& file, const std::vector<LoggedRow>& rows,
                       const IngestOptions& options);
+
+  // Adds several files in one transaction: all of them or, if the process
+  // stops part-way, none.
+  struct IngestInput {
+    std::string file;
+    const std::vector<LoggedRow>* rows = nullptr;  // not owned
+  };
+  std::vector<IngestReport> IngestAll(const std::vector<IngestInput>& files,
+                                      const IngestOptions& options);
 
   // Every logged record, in time order.
   std::vector<LoggedRecord> Records() const;
@@ -120,7 +129,9 @@ class CampaignLog {
   const std::string& path() const { return path_; }
 
  private:
-  void CheckOrCreateSchema(bool fresh, const std::string& plan_name);
+  void CheckOrCreateSchema(bool create, const std::string& plan_name);
+  IngestReport IngestRows(const std::string& file, const std::vector<LoggedRow>& rows,
+                          const IngestOptions& options);
 
   std::string path_;
   std::unique_ptr<SqliteDb> db_;

@@ -71,6 +71,7 @@ int RunCompare(const CompareArgs& args) {
     r.summary =
         SummarizeForecast(plans[i].matrix, sim.deadline_steps(), sim.horizon_steps(),
                           per_run.back(), mc.seed, sim.relaxed_share());
+    RequirePlausible(r.summary, "the forecast of " + args.plan_paths[i]);
     scenarios.push_back(std::move(r));
     for (const std::string& f : PlanInputFiles(plans[i])) inputs.push_back(f);
   }

@@ -12,6 +12,7 @@
 #include <vector>
 
 #include "cli/commands.h"
+#include "cli/run_options.h"
 #include "cli/output_file.h"
 #include "io/met_csv_reader.h"
 #include "io/site_model_writer.h"
@@ -255,17 +256,23 @@ CommandAction AddFitSiteCommand(CLI::App& app) {
   cmd->add_option("--units", args->units, "Unit of speed and std: auto, ms or knots")
       ->capture_default_str();
   cmd->add_option("--sectors", o.sectors, "Direction sectors (1 to 72)")
+      ->check(WholeNumberIn(1, 72, "a whole number from 1 to 72"))
       ->capture_default_str();
-  cmd->add_option("--calm-ms", o.calm_ms, "Calm threshold, m/s")->capture_default_str();
+  cmd->add_option("--calm-ms", o.calm_ms, "Calm threshold, m/s")
+      ->check(NumberIn(0, 3, "a speed above 0 and at most 3 m/s"))
+      ->capture_default_str();
   cmd->add_option("--ti-bin-ms", o.ti_bin_ms, "Width of the TI table's wind bins, m/s")
+      ->check(NumberIn(0.1, 5, "a width from 0.1 to 5 m/s"))
       ->capture_default_str();
   cmd->add_option("--ti-min-count", o.ti_min_count, "Records a TI bin needs")
+      ->check(WholeNumberIn(2, 1000000000, "a whole number of at least 2"))
       ->capture_default_str();
   cmd->add_option("--ti-class", o.ti_class,
                   "IEC 61400-1 class used when there is no std column (A+, A, B, C)")
       ->capture_default_str();
   cmd->add_option("--persistence-lag-h", o.persistence_lag_h,
                   "Lag for the persistence estimate, hours")
+      ->check(NumberIn(0.1, 720, "hours from 0.1 to 720"))
       ->capture_default_str();
   cmd->add_option("--name", o.name, "Site model name (default: the output file's name)");
   cmd->add_flag("--force", args->force,

@@ -113,6 +113,7 @@ int RunForecast(const ForecastArgs& args) {
   const ForecastSummary summary =
       SummarizeForecast(plan.matrix, sim.deadline_steps(), sim.horizon_steps(), runs,
                         mc.seed, sim.relaxed_share());
+  RequirePlausible(summary, "the forecast");
 
   ctx.tool_version = FILLCAST_VERSION;
   ctx.threads = EffectiveThreads(mc.threads);
@@ -154,21 +155,26 @@ CommandAction AddForecastCommand(CLI::App& app) {
       ->type_name("PATH");
   cmd->add_option("--thin", args->thin_rows,
                   "Rows in the table of cells least likely to be full (default 10)")
-      ->type_name("N");
+      ->type_name("N")
+      ->check(WholeNumberIn(0, 1000000, "a whole number >= 0"));
   cmd->add_option("--relax", args->relaxed_share,
                   "Share of each cell's minimum for the 'what if it were lowered' column")
       ->type_name("S")
+      ->check(NumberIn(0, 1, "a share above 0 and below 1 (0.8 = each minimum lowered by "
+                             "20 %)"))
       ->capture_default_str();
   cmd->add_option("--precision", args->precision_weeks,
                   "Add runs (doubling from --runs) until the 95 % interval of the chosen "
                   "quantile is at most WEEKS wide")
-      ->type_name("WEEKS");
+      ->type_name("WEEKS")
+      ->check(NumberIn(0, 1e6, "a width in weeks above 0"));
   cmd->add_option("--precision-of", args->precision_quantile,
                   "Quantile for --precision: p50, p80 or p90")
       ->type_name("Q")
       ->capture_default_str();
   cmd->add_option("--max-runs", args->max_runs, "Cap on runs for --precision")
       ->type_name("N")
+      ->check(WholeNumberIn(1, 10000000, "a whole number from --runs to 10000000"))
       ->capture_default_str();
   return [cmd, args]() { return cmd->parsed() ? RunForecast(*args) : -1; };
 }

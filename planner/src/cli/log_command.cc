@@ -7,6 +7,7 @@
 
 #include "cli/clock.h"
 #include "cli/commands.h"
+#include "cli/run_options.h"
 #include "io/met_csv_reader.h"
 #include "io/records_csv_reader.h"
 #include "planner/campaign_log.h"
@@ -78,8 +79,10 @@ int RunLogAdd(LogAddArgs args) {
   int64_t conflicts = 0;
   IngestOptions options;
   options.now_utc = NowUtc();
-  for (const RecordsFile& f : files) {
-    const IngestReport r = log.Ingest(f.file, f.rows, options);
+  // One transaction for the whole call: every file is added, or none.
+  std::vector<CampaignLog::IngestInput> inputs;
+  for (const RecordsFile& f : files) inputs.push_back({f.file, &f.rows});
+  for (const IngestReport& r : log.IngestAll(inputs, options)) {
     PrintReport(r);
     conflicts += r.conflicting;
   }
@@ -144,6 +147,8 @@ CommandAction AddLogCommand(CLI::App& app) {
   add->add_option("--utc-offset", o.utc_offset_h,
                   "Timestamps are written in UTC + H hours (converted to UTC)")
       ->type_name("H")
+      ->check(NumberIn(-14, 14,
+                       "hours from -14 to 14 in steps of 10 minutes (e.g. 1, -5, 5.5)"))
       ->capture_default_str();
   return [add, args]() { return add->parsed() ? RunLogAdd(*args) : -1; };
 }

@@ -8,6 +8,7 @@
 #include <vector>
 
 #include "cli/commands.h"
+#include "cli/given_options.h"
 #include "planner/error.h"
 
 int main(int argc, char** argv) {
@@ -42,9 +43,12 @@ int main(int argc, char** argv) {
   try {
     app.parse(argc, argv);
   } catch (const CLI::ParseError& e) {
-    return app.exit(e);
+    if (e.get_exit_code() == 0) return app.exit(e);  // --help, --version
+    std::cerr << "fillcast: error: " << e.what() << " (see fillcast --help)\n";
+    return kExitInputError;
   }
   try {
+    CheckGivenOptions(app);
     for (const CommandAction& action : actions) {
       const int code = action();
       if (code >= 0) return code;

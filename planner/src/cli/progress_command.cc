@@ -202,6 +202,7 @@ int RunProgress(const ProgressArgs& args) {
   const LoggedCounts logged = CountLoggedRecords(plan, records, as_of);
   TerminalProgress progress("runs", args.run.quiet);
   const ProgressSummary s = ForecastProgress(plan, logged, as_of, mc, &progress);
+  RequirePlausible(s.forecast, "the forecast of the rest of the campaign");
   const std::string json = FormatProgressJson(plan, s, ctx);
   std::string stored_note;
   if (!args.no_store) {
@@ -254,7 +255,8 @@ CommandAction AddProgressCommand(CLI::App& app) {
                 "Do not store this forecast in the campaign log");
   cmd->add_option("--thin", args->thin_rows,
                   "Rows in the table of cells thin even when extended (default 10)")
-      ->type_name("N");
+      ->type_name("N")
+      ->check(WholeNumberIn(0, 1000000, "a whole number >= 0"));
   return [cmd, args]() { return cmd->parsed() ? RunProgress(*args) : -1; };
 }
 

@@ -5,11 +5,10 @@
 #include <cstdint>
 #include <string>
 
+#include "planner/forecast.h"
 #include "planner/monte_carlo.h"
 
-namespace CLI {
-class App;
-}
+#include <CLI/CLI.hpp>
 
 namespace planner {
 
@@ -21,6 +20,13 @@ struct RunOptionArgs {
   bool force = false;
 };
 
+// Checks for numeric options, run by the option parser on the text as given:
+// a (whole) number, finite (no nan or inf), from lo to hi. The message reads
+// "'<text>' is invalid; expected <valid>" (the parser adds the option's name),
+// so a mistyped number says the valid range like every other input error.
+CLI::Validator WholeNumberIn(long long lo, long long hi, const std::string& valid);
+CLI::Validator NumberIn(double lo, double hi, const std::string& valid);
+
 // Adds --runs, --seed, --threads, --quiet, --force.
 void AddRunOptions(CLI::App* cmd, RunOptionArgs* args);
 
@@ -30,6 +36,11 @@ std::string FlagNumber(double x);
 // A path as a POSIX shell word: unchanged when plain, else single-quoted
 // (for the command lines the reports print to reproduce a run).
 std::string ShellWord(const std::string& text);
+
+// Throws InputError listing the implausible numbers of a summary
+// (planner/result_check.h), if any; `what` names the result ("the forecast",
+// "scenario 2"). Called before anything is written.
+void RequirePlausible(const ForecastSummary& summary, const std::string& what);
 
 // Checks ranges (InputError naming the flag) and fills MonteCarloOptions.
 MonteCarloOptions ValidateRunOptions(const RunOptionArgs& args);

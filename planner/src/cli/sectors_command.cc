@@ -12,6 +12,7 @@
 #include <string>
 #include <vector>
 
+#include "io/file_seal.h"
 #include "cli/commands.h"
 #include "cli/output_file.h"
 #include "model/sector_share.h"
@@ -158,7 +159,10 @@ Json RangeJson(const AngleRange& r) {
 std::string FormatJson(const Plan& plan, const SectorsResult& r) {
   Json j;
   j["tool"] = {
-      {"name", "fillcast"}, {"version", FILLCAST_VERSION}, {"command", "sectors"}};
+      {"name", "fillcast"},
+      {"version", FILLCAST_VERSION},
+      {"command", "sectors"},
+      {"seal", kSealPlaceholder}};
   j["plan"] = {{"name", plan.name}, {"site", plan.site.name}};
   Json disturbed = Json::array();
   const std::size_t neighbours = plan.layout.neighbours.size();

@@ -52,6 +52,7 @@ int RunSweep(const SweepArgs& args) {
     const ForecastSummary s =
         SummarizeForecast(shifted.matrix, sim.deadline_steps(), sim.horizon_steps(), runs,
                           mc.seed, sim.relaxed_share());
+    RequirePlausible(s, "the forecast for the start " + FormatDate(shifted.start));
     rows.push_back(
         {shifted.start, shifted.deadline, s.p50, s.p80, s.p90, s.p_complete_by_deadline});
   }
@@ -70,6 +71,7 @@ int RunSweep(const SweepArgs& args) {
     const ForecastSummary own =
         SummarizeForecast(plan.matrix, sim.deadline_steps(), sim.horizon_steps(), runs,
                           mc.seed, sim.relaxed_share());
+    RequirePlausible(own, "the forecast");
     HtmlReportInput in;
     in.plan = &plan;
     in.forecast = &own;
@@ -97,7 +99,8 @@ CommandAction AddStartSweepCommand(CLI::App& app) {
   AddRunOptions(cmd, &args->run);
   cmd->add_option("--months", args->months,
                   "Consecutive monthly starts from the plan's start month (default 12)")
-      ->type_name("N");
+      ->type_name("N")
+      ->check(WholeNumberIn(1, 36, "a whole number from 1 to 36"));
   cmd->add_option("--json", args->json_path, "Also write the sweep as JSON to PATH")
       ->type_name("PATH");
   cmd->add_option("--report", args->report_path,

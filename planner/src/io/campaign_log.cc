@@ -4,6 +4,7 @@
 #include <cstdio>
 #include <filesystem>
 
+#include "io/input_file.h"
 #include "io/met_csv_reader.h"
 #include "io/sqlite_db.h"
 #include "planner/error.h"
@@ -128,16 +129,30 @@ CampaignLog::CampaignLog(const std::string& path, bool create,
   if (fs::is_directory(path, ec)) {
     throw InputError(path + ": is a folder; expected a campaign log file");
   }
+  if (exists) io::CheckInputFile(path, "campaign log");
   db_ = std::make_unique<SqliteDb>(path, create);
-  CheckOrCreateSchema(!exists || fs::file_size(path, ec) == 0, plan_name);
+  CheckOrCreateSchema(create, plan_name);
 }
 
 CampaignLog::~CampaignLog() = default;
 CampaignLog::CampaignLog(CampaignLog&&) noexcept = default;
 
-void CampaignLog::CheckOrCreateSchema(bool fresh, const std::string& plan_name) {
-  if (fresh) {
-    SqliteTransaction t(*db_);
+void CampaignLog::CheckOrCreateSchema(bool create, const std::string& plan_name) {
+  // Under the write lock: of two fillcast processes creating the same log at
+  // once, the second waits here and then finds the first one's schema.
+  std::unique_ptr<SqliteTransaction> t;
+  bool empty = false;
+  if (create) {
+    try {
+      t = std::make_unique<SqliteTransaction>(*db_);
+      SqliteStatement count(*db_, "SELECT COUNT(*) FROM sqlite_master");
+      empty = count.Step() && count.Int(0) == 0;
+    } catch (const InputError&) {
+      empty = false;  // not an SQLite file: reported below
+      t.reset();
+    }
+  }
+  if (empty) {
     db_->Exec(kSchema);
     SqliteStatement put(*db_, "INSERT INTO meta (key, value) VALUES (?, ?)");
     const std::pair<std::string, std::string> rows[] = {
@@ -149,9 +164,10 @@ void CampaignLog::CheckOrCreateSchema(bool fresh, const std::string& plan_name) 
       put.Reset();
       put.Bind(1, key).Bind(2, value).Step();
     }
-    t.Commit();
+    t->Commit();
     return;
   }
+  t.reset();
   std::string format, version;
   try {
     SqliteStatement get(*db_, "SELECT key, value FROM meta");
@@ -178,10 +194,27 @@ void CampaignLog::CheckOrCreateSchema(bool fresh, const std::string& plan_name) 
 IngestReport CampaignLog::Ingest(const std::string& file,
                                  const std::vector<LoggedRow>& rows,
                                  const IngestOptions& options) {
+  SqliteTransaction t(*db_);
+  IngestReport report = IngestRows(file, rows, options);
+  t.Commit();
+  return report;
+}
+
+std::vector<IngestReport> CampaignLog::IngestAll(const std::vector<IngestInput>& files,
+                                                 const IngestOptions& options) {
+  SqliteTransaction t(*db_);
+  std::vector<IngestReport> reports;
+  for (const IngestInput& f : files) reports.push_back(IngestRows(f.file, *f.rows, options));
+  t.Commit();
+  return reports;
+}
+
+IngestReport CampaignLog::IngestRows(const std::string& file,
+                                     const std::vector<LoggedRow>& rows,
+                                     const IngestOptions& options) {
   IngestReport report;
   report.file = file;
   report.rows = static_cast<int64_t>(rows.size());
-  SqliteTransaction t(*db_);
   SqliteStatement add_ingest(*db_,
                              "INSERT INTO ingests (file, ingested_at, rows, added, "
                              "already_logged, conflicting) VALUES (?, ?, 0, 0, 0, 0)");
@@ -230,9 +263,11 @@ IngestReport CampaignLog::Ingest(const std::string& file,
     ++done;
     if (options.after_row) options.after_row(done);
   }
-  if (report.added == 0) {
+  if (report.added == 0) {  // nothing new: leave no trace of this file
+    SqliteStatement drop(*db_, "DELETE FROM ingests WHERE id = ?");
+    drop.Bind(1, ingest_id).Step();
     report.records_in_log = RecordCount();
-    return report;  // the transaction rolls back: nothing written
+    return report;
   }
   SqliteStatement update(*db_,
                          "UPDATE ingests SET rows = ?, added = ?, already_logged = ?, "
@@ -243,7 +278,6 @@ IngestReport CampaignLog::Ingest(const std::string& file,
       .Bind(4, report.conflicting)
       .Bind(5, ingest_id)
       .Step();
-  t.Commit();
   report.records_in_log = RecordCount();
   return report;
 }

@@ -12,6 +12,7 @@
 #include <map>
 
 #include "io/csv_lines.h"
+#include "io/input_file.h"
 #include "planner/calendar.h"
 #include "planner/error.h"
 
@@ -236,7 +237,7 @@ int Parser::FindColumn(const std::string& requested, const Role& role) const {
 
 void Parser::ReadHeader(const std::string& line, int64_t line_no) {
   header_line_ = static_cast<int>(line_no);
-  header_ = SplitCsvLine(line);
+  header_ = SplitCsvLine(line, SourceLocation{file_, static_cast<int>(line_no), 0});
   if (header_.size() == 1 && line.find_first_of(";\t") != std::string::npos) {
     FailHeader("", "header " + Quoted(Trim(line)) +
                        " has one column; columns must be separated by commas");
@@ -411,7 +412,8 @@ bool Parser::ReadDirection(const std::string& cell, int64_t line_no,
 
 void Parser::ReadRow(const std::string& line, int64_t line_no) {
   ++series_.read.rows_read;
-  const std::vector<std::string> cells = SplitCsvLine(line);
+  const std::vector<std::string> cells =
+      SplitCsvLine(line, SourceLocation{file_, static_cast<int>(line_no), 0});
   if (cells.size() != header_.size()) {
     Drop(DropReason::kCellCount, line_no,
          std::to_string(cells.size()) + " cells; the header has " +
@@ -548,19 +550,29 @@ int64_t MetReadReport::DroppedTotal() const {
   return total;
 }
 
-std::vector<std::string> SplitCsvLine(const std::string& line) {
+std::vector<std::string> SplitCsvLine(const std::string& line, const SourceLocation& where) {
   std::vector<std::string> cells;
   std::string cell;
   bool quoted = false, was_quoted = false;
+  std::size_t open = 0;  // where the quoted cell opened
+  auto fail = [&](std::size_t column, const std::string& message) {
+    ThrowAt(SourceLocation{where.file, where.line, static_cast<int>(column) + 1}, "",
+            message);
+  };
   for (std::size_t i = 0; i <= line.size(); ++i) {
     const char c = i < line.size() ? line[i] : ',';
     if (quoted) {
+      if (i == line.size()) {
+        fail(open,
+             "unterminated quote: the \" that opens this cell is not closed on this "
+             "line; close it with \" (a quote inside a cell is written \"\"; cells "
+             "holding line breaks are not read)");
+      }
       if (c == '"' && i + 1 < line.size() && line[i + 1] == '"') {
         cell += '"';
         ++i;
-      } else if (c == '"' || i == line.size()) {
+      } else if (c == '"') {
         quoted = false;
-        if (i == line.size()) --i;  // unterminated: end the cell here
       } else {
         cell += c;
       }
@@ -568,9 +580,13 @@ std::vector<std::string> SplitCsvLine(const std::string& line) {
       cells.push_back(Trim(cell));
       cell.clear();
       was_quoted = false;
-    } else if (c == '"' && Trim(cell).empty()) {
+    } else if (c == '"' && Trim(cell).empty() && !was_quoted) {
       cell.clear();
       quoted = was_quoted = true;
+      open = i;
+    } else if (was_quoted && c != ' ' && c != '\t' && c != '\r') {
+      fail(i, "text after the closing quote of a cell; a quoted cell ends at its closing "
+              "\" (write a quote inside it as \"\")");
     } else if (!was_quoted) {
       cell += c;
     }
@@ -641,14 +657,8 @@ MetSeries ReadMetCsv(std::istream& in, const std::string& file_name,
 }
 
 MetSeries LoadMetCsv(const std::string& path, const MetCsvOptions& options) {
-  namespace fs = std::filesystem;
-  std::error_code ec;
   const SourceLocation where{path, 0, 0};
-  if (!fs::exists(path, ec))
-    ThrowAt(where, "", "cannot open met data file: no such file");
-  if (fs::is_directory(path, ec)) {
-    ThrowAt(where, "", "cannot open met data file: it is a folder");
-  }
+  io::CheckInputFile(path, "met data");
   std::ifstream in(path, std::ios::binary);
   if (!in) ThrowAt(where, "", "cannot open met data file: not readable");
   return ReadMetCsv(in, path, options);

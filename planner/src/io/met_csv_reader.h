@@ -25,6 +25,7 @@
 #include <string>
 #include <vector>
 
+#include "planner/error.h"
 #include "planner/site_fit.h"
 
 namespace planner {
@@ -51,8 +52,12 @@ std::string FormatStep(int64_t step_s);
 
 // The cells of one CSV line: comma-separated, "double-quoted" cells with ""
 // for a quote inside; spaces around each cell's text are trimmed (inside the
-// quotes too: no value we read has meaningful outer spaces).
-std::vector<std::string> SplitCsvLine(const std::string& line);
+// quotes too: no value we read has meaningful outer spaces). A quote that is
+// not closed on the line, or text after a closing quote, throws InputError at
+// `where` (file and line) and the quote's column: a cell never runs on into
+// the next line or silently loses text.
+std::vector<std::string> SplitCsvLine(const std::string& line,
+                                      const SourceLocation& where = {});
 
 }  // namespace planner
 

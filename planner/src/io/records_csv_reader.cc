@@ -9,6 +9,7 @@
 #include <limits>
 
 #include "io/csv_lines.h"
+#include "io/input_file.h"
 #include "io/met_csv_reader.h"
 #include "planner/error.h"
 #include "planner/site_fit.h"
@@ -145,7 +146,7 @@ int Parser::Find(const std::string& requested, const Role& role) const {
 
 void Parser::ReadHeader(const std::string& line, int64_t line_no) {
   header_line_ = static_cast<int>(line_no);
-  header_ = SplitCsvLine(line);
+  header_ = SplitCsvLine(line, SourceLocation{out_.file, static_cast<int>(line_no), 0});
   time_ = Find(options_.time_column, kTime);
   speed_ = Find(options_.speed_column, kSpeed);
   std_ = Find(options_.std_column, kStd);
@@ -222,7 +223,8 @@ bool Parser::Timestamp(const std::string& cell, int col, int64_t line_no,
 }
 
 void Parser::ReadRow(const std::string& line, int64_t line_no) {
-  const std::vector<std::string> cells = SplitCsvLine(line);
+  const std::vector<std::string> cells =
+      SplitCsvLine(line, SourceLocation{out_.file, static_cast<int>(line_no), 0});
   if (cells.size() != header_.size()) {
     if (line_no != last_problem_line_) ++problem_rows_;
     last_problem_line_ = line_no;
@@ -304,13 +306,8 @@ RecordsFile ReadRecordsCsv(std::istream& in, const std::string& file_name,
 }
 
 RecordsFile LoadRecordsCsv(const std::string& path, const RecordsCsvOptions& options) {
-  namespace fs = std::filesystem;
-  std::error_code ec;
   const SourceLocation where{path, 0, 0};
-  if (!fs::exists(path, ec)) ThrowAt(where, "", "cannot open records file: no such file");
-  if (fs::is_directory(path, ec)) {
-    ThrowAt(where, "", "cannot open records file: it is a folder");
-  }
+  io::CheckInputFile(path, "records");
   std::ifstream in(path, std::ios::binary);
   if (!in) ThrowAt(where, "", "cannot open records file: not readable");
   return ReadRecordsCsv(in, path, options);

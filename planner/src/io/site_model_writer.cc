@@ -1,3 +1,4 @@
+#include "io/file_seal.h"
 #include "io/site_model_writer.h"
 
 #include <cmath>
@@ -111,7 +112,7 @@ std::string SectorComment(std::size_t i, std::size_t n) {
 std::string FormatSiteModelYaml(const SiteModel& site,
                                 const std::vector<std::string>& comments) {
   std::ostringstream out;
-  out << "# generator=fillcast " << FILLCAST_VERSION << "\n";
+  out << "# generator=fillcast " << FILLCAST_VERSION << " " << kSealPlaceholder << "\n";
   for (const std::string& c : comments) WriteComment(c, out);
   out << "\nname: " << Quote(site.name) << "\n";
   if (!site.description.empty())

@@ -9,6 +9,10 @@
 
 namespace planner {
 
+namespace {
+constexpr int kBusyTimeoutMs = 60000;
+}  // namespace
+
 SqliteDb::SqliteDb(const std::string& path, bool create) : path_(path) {
   const int flags = SQLITE_OPEN_READWRITE | (create ? SQLITE_OPEN_CREATE : 0);
   if (sqlite3_open_v2(path.c_str(), &db_, flags, nullptr) != SQLITE_OK) {
@@ -17,9 +21,9 @@ SqliteDb::SqliteDb(const std::string& path, bool create) : path_(path) {
     db_ = nullptr;
     throw InputError(path + ": cannot open the campaign log: " + message);
   }
-  // Wait a little for another fillcast holding the write lock, then fail
-  // with a clear message rather than at once.
-  sqlite3_busy_timeout(db_, 5000);
+  // Wait for another fillcast holding the write lock (a large `log add`),
+  // then fail with a clear message rather than at once or never.
+  sqlite3_busy_timeout(db_, kBusyTimeoutMs);
 }
 
 SqliteDb::~SqliteDb() { sqlite3_close(db_); }
@@ -29,6 +33,11 @@ void SqliteDb::Exec(const std::string& sql) {
   if (sqlite3_exec(db_, sql.c_str(), nullptr, nullptr, &message) != SQLITE_OK) {
     const std::string text = message != nullptr ? message : sqlite3_errmsg(db_);
     sqlite3_free(message);
+    if (sqlite3_errcode(db_) == SQLITE_BUSY) {
+      throw InputError(path_ + ": campaign log: another fillcast is writing it and did " +
+                       "not finish within " + std::to_string(kBusyTimeoutMs / 1000) +
+                       " s; run this again when it has finished");
+    }
     throw InputError(path_ + ": campaign log: " + text);
   }
 }

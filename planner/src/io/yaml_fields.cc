@@ -11,6 +11,9 @@
 #include <fstream>
 #include <sstream>
 
+#include "io/input_file.h"
+#include "io/yaml_quotes.h"
+
 namespace planner {
 namespace io {
 namespace {
@@ -195,11 +198,7 @@ std::string NumberTypeError(const Field& f) {
 std::string ReadInputFile(const std::string& path, const std::string& what) {
   std::error_code ec;
   const SourceLocation where{path, 0, 0};
-  if (!fs::exists(path, ec))
-    ThrowAt(where, "", "cannot open " + what + " file: no such file");
-  if (fs::is_directory(path, ec)) {
-    ThrowAt(where, "", "cannot open " + what + " file: it is a folder");
-  }
+  CheckInputFile(path, what);
   const std::uintmax_t size = fs::file_size(path, ec);
   if (!ec && size > kMaxInputBytes) {
     ThrowAt(where, "",
@@ -226,6 +225,7 @@ std::string ReadInputFile(const std::string& path, const std::string& what) {
 Field ParseDocument(const std::string& text, const std::string& file_name) {
   YAML::Node document;
   try {
+    CheckQuotesClose(text, file_name);
     CheckSingleDocument(text, file_name);  // a trailing "---" is harmless
     document = YAML::Load(text);
   } catch (const YAML::Exception& e) {

@@ -5,6 +5,7 @@
 #include <algorithm>
 #include <cmath>
 
+#include "io/file_seal.h"
 #include "planner/report_files.h"
 #include "report/report_numbers.h"
 
@@ -32,7 +33,7 @@ std::string Row(const std::vector<std::string>& fields) {
 }
 
 std::string GeneratorLine(const ReportContext& ctx) {
-  return "# generator=fillcast " + ctx.tool_version + "\r\n";
+  return "# generator=fillcast " + ctx.tool_version + " " + kSealPlaceholder + "\r\n";
 }
 
 }  // namespace

@@ -1,3 +1,4 @@
+#include "io/file_seal.h"
 #include "planner/decision_report.h"
 
 #include <nlohmann/json.hpp>
@@ -101,7 +102,8 @@ std::string FormatComparisonText(const Comparison& c, const ReportContext& ctx) 
 
 std::string FormatComparisonJson(const Comparison& c, const ReportContext& ctx) {
   Json j;
-  j["tool"] = {{"name", "fillcast"}, {"version", ctx.tool_version}};
+  j["tool"] = {
+      {"name", "fillcast"}, {"version", ctx.tool_version}, {"seal", kSealPlaceholder}};
   j["rank_by"] = RankByName(c.rank_by);
   j["scenarios"] = Json::array();
   for (const ScenarioResult& r : c.ranked) {
@@ -170,7 +172,8 @@ std::string FormatStartSweepText(const Plan& plan, const std::vector<StartSweepR
 std::string FormatStartSweepJson(const Plan& plan, const std::vector<StartSweepRow>& rows,
                                  const ReportContext& ctx, long runs, uint64_t seed) {
   Json j;
-  j["tool"] = {{"name", "fillcast"}, {"version", ctx.tool_version}};
+  j["tool"] = {
+      {"name", "fillcast"}, {"version", ctx.tool_version}, {"seal", kSealPlaceholder}};
   j["plan"] = plan.name;
   j["runs"] = runs;
   j["seed"] = seed;

@@ -1,3 +1,4 @@
+#include "io/file_seal.h"
 #include "planner/forecast_report.h"
 
 #include <algorithm>
@@ -346,7 +347,7 @@ std::string FormatForecastText(const Plan& plan, const ForecastSummary& s,
 std::string FormatForecastJson(const Plan& plan, const ForecastSummary& s,
                                const ReportContext& ctx) {
   Json j;
-  j["tool"] = {{"name", "fillcast"}, {"version", ctx.tool_version}};
+  j["tool"] = {{"name", "fillcast"}, {"version", ctx.tool_version}, {"seal", kSealPlaceholder}};
   j["plan"] = {{"name", plan.name},
                {"site", plan.site.name},
                {"turbine", plan.turbine.name},

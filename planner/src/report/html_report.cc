@@ -5,6 +5,7 @@
 #include <cmath>
 #include <stdexcept>
 
+#include "io/file_seal.h"
 #include "planner/reachability.h"
 #include "planner/report_files.h"
 #include "planner/weather_source.h"
@@ -58,6 +59,8 @@ std::string PageHead(const HtmlReportInput& in) {
   return "<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\">\n"
          "<meta name=\"generator\" content=\"fillcast " +
          Esc(version) +
+         "\">\n<meta name=\"fillcast-seal\" content=\"" +
+         kSealPlaceholder +
          "\">\n"
          "<meta http-equiv=\"Content-Security-Policy\" content=\"default-src 'none'; "
          "style-src 'unsafe-inline'; img-src data:\">\n"

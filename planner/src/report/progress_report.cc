@@ -1,3 +1,4 @@
+#include "io/file_seal.h"
 #include "planner/progress_report.h"
 
 #include <algorithm>
@@ -302,7 +303,7 @@ Json LoggedJson(const LoggedCounts& l) {
 }
 
 Json ToolJson(const std::string& version) {
-  return {{"name", "fillcast"}, {"version", version}};
+  return {{"name", "fillcast"}, {"version", version}, {"seal", kSealPlaceholder}};
 }
 
 Json PlanJson(const Plan& plan) {
