@@ -95,7 +95,9 @@ TEST(ValueHistogramTest, MemoryStaysWithinItsBoundHoweverManyValues) {
   size_t after_first = 0;
   for (long i = 1; i <= 2000000; ++i) {
     h.Add(value(gen));
-    if (i % 100000 == 0) EXPECT_LE(h.MemoryBytes(), bound) << i;
+    if (i % 100000 == 0) {
+      EXPECT_LE(h.MemoryBytes(), bound) << i;
+    }
     if (i == 100000) after_first = h.MemoryBytes();
   }
   EXPECT_EQ(h.total(), 2000000);
