@@ -10,8 +10,8 @@
 //    their order-statistic confidence intervals (planner/quantile.h), the
 //    shares by the deadline and at the horizon and the completion curve are
 //    exact, whatever the number of runs.
-//  - Per cell (counts at the deadline, weeks to full, what relaxing it saves)
-//    and the fill curve's shares: exact while a cell has seen at most
+//  - Per cell (counts at the deadline, weeks to full, what relaxing it saves):
+//    exact while a cell has seen at most
 //    kCellBuckets distinct values (always for up to kCellBuckets runs). Past
 //    that, values share buckets of 2, 4, ... records or steps, and a
 //    quantile is the middle of its bucket: within (width - 1) / 2 of the
@@ -20,7 +20,8 @@
 //    weeks figure is within 0.031 week (printed to 0.1) and a count within
 //    31.5 records (only for cells whose counts spread over more than 16,384
 //    values).
-//  - Shares (probabilities) and means of counts: exact.
+//  - Shares (probabilities), means of counts and the fill curve (runs per
+//    number of required cells full, week by week): exact.
 // Runs must be added in run order for floating-point sums to repeat exactly
 // (same seed, same answer for any thread count).
 #ifndef PLANNER_FORECAST_ACCUMULATOR_H_
