@@ -153,8 +153,9 @@ TEST(CsvExportTest, QuotesFieldsWithCommasAndQuotesAsRfc4180Asks) {
 
 TEST(CsvExportTest, CompletionCurveIsTheEmpiricalDistributionFunction) {
   ForecastSummary s;
-  const double inf = std::numeric_limits<double>::infinity();
-  s.completion_weeks = {1.5, 2.0, 2.0, 3.25, inf};
+  // Five runs completing at 1.5, 2, 2, 3.25 weeks and never.
+  s.runs = 5;
+  s.completion_counts = {{1.5, 1}, {2.0, 2}, {3.25, 1}};
   std::vector<std::string> comments;
   const std::vector<Row> rows =
       ParseCsv(FormatCompletionCurveCsv(s, TestContext()), &comments);

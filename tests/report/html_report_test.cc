@@ -203,7 +203,8 @@ TEST(HtmlReportTest, ChartsAreInlineSvgWithLabelledAxes) {
 TEST(HtmlReportTest, EmptyCurvesAreSaidInWords) {
   Report r;
   r.summary.fill_curve.clear();
-  r.summary.completion_weeks.clear();
+  r.summary.completion_counts.clear();
+  r.summary.runs = 0;
   const std::string html = r.Html();
   EXPECT_TRUE(Has(html, "No runs to draw."));
   EXPECT_TRUE(Has(html, "Not available for this result."));

@@ -100,8 +100,9 @@ inline ForecastSummary TestSummary(const Plan& plan) {
   s.seed = 4242;
   s.deadline_weeks = 10;
   s.horizon_weeks = 20;
-  const double inf = std::numeric_limits<double>::infinity();
-  s.completion_weeks = {3.5, 5.1, 6.0, 7.25, 9.01, 9.5, 11.0, 12.0, 12.5, inf};
+  // Nine distinct completion times and one run incomplete at the horizon.
+  s.completion_counts = {{3.5, 1}, {5.1, 1}, {6.0, 1},  {7.25, 1}, {9.01, 1},
+                         {9.5, 1}, {11.0, 1}, {12.0, 1}, {12.5, 1}};
   s.p10 = Q(0.1, 3.5, std::nullopt, 6.0);
   s.p50 = Q(0.5, 9.01, 5.1, 12.0);
   s.p80 = Q(0.8, 12.0, 9.01, std::nullopt);

@@ -17,15 +17,24 @@ TEST(MonteCarloTest, RunToPrecisionEqualsOneBatchOfTheFinalSize) {
   MonteCarloOptions mc;
   mc.runs = 50;
   mc.seed = 4;
-  const PrecisionResult p = RunToPrecision(sim, mc, 0.8, 0.2, 12800, nullptr);
+  std::vector<int64_t> folded;  // completion steps in the order folded
+  std::vector<uint64_t> firsts;
+  const PrecisionResult p = RunToPrecision(
+      sim, mc, 0.8, 0.2, 12800, nullptr,
+      [&](uint64_t first, const std::vector<std::vector<RunResult>>& chunk) {
+        firsts.push_back(first);
+        for (const RunResult& r : chunk[0]) folded.push_back(r.completion_step);
+      });
   ASSERT_TRUE(p.target_met);
   EXPECT_LE(p.ci_width_weeks, 0.2);
   EXPECT_GT(p.rounds, 1);
-  mc.runs = static_cast<int>(p.runs.size());
+  ASSERT_EQ(static_cast<long>(folded.size()), p.runs);
+  EXPECT_EQ(firsts.front(), 0u);
+  mc.runs = static_cast<int>(p.runs);
   const std::vector<RunResult> once = RunMonteCarlo(sim, mc, nullptr);
-  ASSERT_EQ(once.size(), p.runs.size());
+  ASSERT_EQ(once.size(), folded.size());
   for (size_t i = 0; i < once.size(); ++i) {
-    ASSERT_EQ(once[i].completion_step, p.runs[i].completion_step) << i;
+    ASSERT_EQ(once[i].completion_step, folded[i]) << i;
   }
 }
 
@@ -34,9 +43,15 @@ TEST(MonteCarloTest, RunToPrecisionStopsAtTheCap) {
   const Simulator sim(plan);
   MonteCarloOptions mc;
   mc.runs = 40;
-  const PrecisionResult p = RunToPrecision(sim, mc, 0.8, 1e-9, 100, nullptr);
+  long folded = 0;
+  const PrecisionResult p = RunToPrecision(
+      sim, mc, 0.8, 1e-9, 100, nullptr,
+      [&](uint64_t, const std::vector<std::vector<RunResult>>& chunk) {
+        folded += static_cast<long>(chunk[0].size());
+      });
   EXPECT_FALSE(p.target_met);
-  EXPECT_EQ(p.runs.size(), 100u);
+  EXPECT_EQ(p.runs, 100);
+  EXPECT_EQ(folded, 100);
 }
 
 }  // namespace

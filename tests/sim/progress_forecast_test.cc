@@ -161,7 +161,12 @@ TEST(ProgressForecastTest, SameSeedSameAnswerForAnyThreadCount) {
       ForecastProgress(plan, logged, as_of, Options(64, 1), nullptr);
   const ProgressSummary two =
       ForecastProgress(plan, logged, as_of, Options(64, 2), nullptr);
-  EXPECT_EQ(one.forecast.completion_weeks, two.forecast.completion_weeks);
+  ASSERT_EQ(one.forecast.completion_counts.size(), two.forecast.completion_counts.size());
+  for (size_t i = 0; i < one.forecast.completion_counts.size(); ++i) {
+    EXPECT_EQ(one.forecast.completion_counts[i].weeks,
+              two.forecast.completion_counts[i].weeks);
+    EXPECT_EQ(one.forecast.completion_counts[i].runs, two.forecast.completion_counts[i].runs);
+  }
   EXPECT_EQ(one.extensions[1].p_complete, two.extensions[1].p_complete);
 }
 

@@ -49,8 +49,48 @@ struct Comparison {
   std::optional<PairedDifference> best_two;
 };
 
-// Ranks scenarios (ties keep input order). per_run[i] are the runs of
-// scenarios[i], all with the same seed and run count.
+// What ranking needs from the runs of several scenarios on the same streams,
+// folded run index by run index so that memory does not grow with the runs:
+// each scenario's cost summed over its runs, and for every pair of scenarios
+// the sums of their paired completion differences. Sums are taken in run
+// order, so the result repeats exactly.
+class ComparisonTally {
+ public:
+  // One cost model per scenario.
+  explicit ComparisonTally(std::vector<CostModel> costs);
+  // chunk[s][j] is run j of this chunk for scenario s (the chunks in run
+  // order; every scenario the same number of runs).
+  void Add(const std::vector<std::vector<RunResult>>& chunk);
+
+  long runs() const { return runs_; }
+  // Mean cost over the runs of scenario s (see ScenarioResult::expected_cost),
+  // and whether an incomplete run made it a lower bound.
+  double ExpectedCost(size_t s) const;
+  bool ExpectedCostIsLowerBound(size_t s) const;
+  // PairedCompletionDifference of scenarios a and b (a != b), named.
+  PairedDifference Paired(size_t a, const std::string& a_name, size_t b,
+                          const std::string& b_name) const;
+
+ private:
+  struct PairSums {
+    long pairs = 0;           // runs where both completed
+    double sum = 0, sum2 = 0;  // of (later scenario - earlier), weeks
+    long first_sooner = 0, second_sooner = 0;
+  };
+  const PairSums& Pair(size_t a, size_t b) const;
+
+  std::vector<CostModel> costs_;
+  long runs_ = 0;
+  std::vector<double> cost_sum_;
+  std::vector<bool> lower_bound_;
+  std::vector<PairSums> pairs_;  // [a * scenarios + b] for a < b
+};
+
+// Ranks scenarios (ties keep input order). tally holds the runs of
+// scenarios[i] as its scenario i, all with the same seed and run count.
+Comparison RankScenarios(std::vector<ScenarioResult> scenarios,
+                         const ComparisonTally& tally, RankBy rank_by);
+// The same from runs held in vectors: per_run[i] are the runs of scenarios[i].
 Comparison RankScenarios(std::vector<ScenarioResult> scenarios,
                          const std::vector<std::vector<RunResult>>& per_run,
                          RankBy rank_by);

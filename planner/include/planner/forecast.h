@@ -38,6 +38,12 @@ struct CellForecast {
   std::optional<double> saved_p50_if_relaxed, saved_p80_if_relaxed;
 };
 
+// Runs that completed at one completion time.
+struct CompletionCount {
+  double weeks = 0;
+  long runs = 0;
+};
+
 // Share of required cells full at a week, over the runs.
 struct FillPoint {
   double week = 0;
@@ -61,8 +67,10 @@ struct ForecastSummary {
   std::vector<CellForecast> cells;  // in matrix order
   int bottleneck_cell = -1;         // most often last to fill, -1 if none
 
-  // Completion weeks of every run, ascending; +infinity = not complete.
-  std::vector<double> completion_weeks;
+  // The distinct completion weeks, ascending, each with its number of runs
+  // (one entry per distinct completion step, at most one per step of the
+  // horizon, however many runs); the runs not counted here did not complete.
+  std::vector<CompletionCount> completion_counts;
   // Share of required cells full, week by week from 0 to the last simulated
   // week (runs that stopped count as they stopped).
   std::vector<FillPoint> fill_curve;
@@ -76,6 +84,9 @@ struct ForecastSummary {
   double mean_speed_ms = 0;    // mean simulated wind speed at hub height
 };
 
+// The summary of runs held in a vector (tests, small run counts): the same as
+// ForecastAccumulator (planner/forecast_accumulator.h) fed with them in order,
+// which the commands use so that memory does not grow with the runs.
 ForecastSummary SummarizeForecast(const CaptureMatrix& matrix, int64_t deadline_steps,
                                   int64_t horizon_steps,
                                   const std::vector<RunResult>& runs, uint64_t seed,

@@ -9,6 +9,7 @@
 #ifndef PLANNER_QUANTILE_H_
 #define PLANNER_QUANTILE_H_
 
+#include <functional>
 #include <optional>
 #include <vector>
 
@@ -25,6 +26,12 @@ struct QuantileEstimate {
 
 // sorted: ascending, +infinity allowed, at least one element. 0 < p < 1.
 QuantileEstimate EstimateQuantile(const std::vector<double>& sorted, double p,
+                                  double confidence = 0.95);
+
+// The same estimate for n samples held elsewhere (a histogram): at(k) is the
+// k-th smallest (1-based, 1 <= k <= n), nullopt where it is +infinity.
+using RankLookup = std::function<std::optional<double>(long rank)>;
+QuantileEstimate EstimateQuantile(long n, const RankLookup& at, double p,
                                   double confidence = 0.95);
 
 // 1-based order-statistic ranks (l, u) of the interval above for n samples.

@@ -12,6 +12,7 @@
 #include "cli/terminal_progress.h"
 #include "planner/decision_report.h"
 #include "planner/error.h"
+#include "planner/forecast_accumulator.h"
 #include "planner/monte_carlo.h"
 #include "planner/plan_reader.h"
 #include "planner/report_files.h"
@@ -52,15 +53,33 @@ int RunCompare(const CompareArgs& args) {
     WarnUnreachable(plans.back());
     clash = clash || !names.insert(plans.back().name).second;
   }
+  // All scenarios run chunk by chunk on the same run indices, each chunk
+  // folded into the summaries and the paired tally and then discarded, so
+  // memory does not grow with --runs.
+  std::vector<std::unique_ptr<Simulator>> sims;
+  std::vector<const Simulator*> sim_list;
+  std::vector<ForecastAccumulator> accs;
+  std::vector<CostModel> costs;
+  for (const Plan& plan : plans) {
+    sims.push_back(std::make_unique<Simulator>(plan));
+    sim_list.push_back(sims.back().get());
+    accs.emplace_back(plan.matrix, sims.back()->deadline_steps(),
+                      sims.back()->horizon_steps(), sims.back()->relaxed_share());
+    costs.push_back(plan.cost);
+  }
+  ComparisonTally tally(costs);
+  TerminalProgress progress("runs of " + std::to_string(plans.size()) + " scenarios",
+                            args.run.quiet);
+  RunMonteCarloInChunks(sim_list, mc, &progress,
+                        [&](uint64_t, const std::vector<std::vector<RunResult>>& chunk) {
+                          for (size_t i = 0; i < chunk.size(); ++i) {
+                            for (const RunResult& r : chunk[i]) accs[i].Add(r);
+                          }
+                          tally.Add(chunk);
+                        });
   std::vector<ScenarioResult> scenarios;
-  std::vector<std::vector<RunResult>> per_run;
   std::vector<std::string> inputs;
   for (size_t i = 0; i < plans.size(); ++i) {
-    const Simulator sim(plans[i]);
-    TerminalProgress progress(
-        "runs of scenario " + std::to_string(i + 1) + "/" + std::to_string(plans.size()),
-        args.run.quiet);
-    per_run.push_back(RunMonteCarlo(sim, mc, &progress));
     ScenarioResult r;
     r.name = clash ? plans[i].name + " (" + args.plan_paths[i] + ")" : plans[i].name;
     r.file = args.plan_paths[i];
@@ -68,14 +87,12 @@ int RunCompare(const CompareArgs& args) {
     for (const Cell& c : plans[i].matrix.cells) {
       r.cell_labels.push_back(CellLabel(plans[i].matrix, c));
     }
-    r.summary =
-        SummarizeForecast(plans[i].matrix, sim.deadline_steps(), sim.horizon_steps(),
-                          per_run.back(), mc.seed, sim.relaxed_share());
+    r.summary = accs[i].Summary(mc.seed);
     RequirePlausible(r.summary, "the forecast of " + args.plan_paths[i]);
     scenarios.push_back(std::move(r));
     for (const std::string& f : PlanInputFiles(plans[i])) inputs.push_back(f);
   }
-  const Comparison comparison = RankScenarios(scenarios, per_run, rank_by);
+  const Comparison comparison = RankScenarios(scenarios, tally, rank_by);
   ReportContext ctx;
   ctx.tool_version = FILLCAST_VERSION;
   ctx.threads = EffectiveThreads(mc.threads);

@@ -11,6 +11,7 @@
 #include "cli/terminal_progress.h"
 #include "planner/error.h"
 #include "planner/forecast.h"
+#include "planner/forecast_accumulator.h"
 #include "planner/forecast_report.h"
 #include "planner/monte_carlo.h"
 #include "planner/plan_reader.h"
@@ -88,7 +89,13 @@ int RunForecast(const ForecastArgs& args) {
   const Simulator sim(plan, sim_options);
   TerminalProgress progress("runs", args.run.quiet);
   ReportContext ctx;
-  std::vector<RunResult> runs;
+  // Runs are folded in chunk by chunk and discarded: memory does not grow
+  // with --runs (docs/performance.md, "Memory").
+  ForecastAccumulator acc(plan.matrix, sim.deadline_steps(), sim.horizon_steps(),
+                          sim.relaxed_share());
+  const ChunkFold fold = [&acc](uint64_t, const std::vector<std::vector<RunResult>>& c) {
+    for (const RunResult& r : c[0]) acc.Add(r);
+  };
   if (args.precision_weeks > 0) {
     const double q = ParseQuantile(args.precision_quantile);
     if (args.max_runs < mc.runs || args.max_runs > 10000000) {
@@ -96,9 +103,8 @@ int RunForecast(const ForecastArgs& args) {
                        " is invalid; expected a whole number from --runs (" +
                        std::to_string(mc.runs) + ") to 10000000");
     }
-    PrecisionResult p =
-        RunToPrecision(sim, mc, q, args.precision_weeks, args.max_runs, &progress);
-    runs = std::move(p.runs);
+    const PrecisionResult p =
+        RunToPrecision(sim, mc, q, args.precision_weeks, args.max_runs, &progress, fold);
     ctx.precision_used = true;
     ctx.precision_quantile = q;
     ctx.precision_target_weeks = args.precision_weeks;
@@ -108,11 +114,9 @@ int RunForecast(const ForecastArgs& args) {
     throw InputError("--precision: " + FlagNumber(args.precision_weeks) +
                      " is invalid; expected a width in weeks above 0");
   } else {
-    runs = RunMonteCarlo(sim, mc, &progress);
+    RunMonteCarloInChunks({&sim}, mc, &progress, fold);
   }
-  const ForecastSummary summary =
-      SummarizeForecast(plan.matrix, sim.deadline_steps(), sim.horizon_steps(), runs,
-                        mc.seed, sim.relaxed_share());
+  const ForecastSummary summary = acc.Summary(mc.seed);
   RequirePlausible(summary, "the forecast");
 
   ctx.tool_version = FILLCAST_VERSION;

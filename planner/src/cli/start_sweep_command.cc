@@ -12,6 +12,7 @@
 #include "planner/decision.h"
 #include "planner/decision_report.h"
 #include "planner/error.h"
+#include "planner/forecast_accumulator.h"
 #include "planner/monte_carlo.h"
 #include "planner/plan_reader.h"
 #include "planner/report_files.h"
@@ -33,6 +34,20 @@ Date AddMonths(const Date& first_of_month, int months) {
   return Date{first_of_month.year + index / 12, index % 12 + 1, 1};
 }
 
+// The plan's forecast, its runs folded chunk by chunk (memory does not grow
+// with --runs).
+ForecastSummary ForecastInChunks(const Plan& plan, const MonteCarloOptions& mc,
+                                 ProgressSink* progress) {
+  const Simulator sim(plan);
+  ForecastAccumulator acc(plan.matrix, sim.deadline_steps(), sim.horizon_steps(),
+                          sim.relaxed_share());
+  RunMonteCarloInChunks({&sim}, mc, progress,
+                        [&acc](uint64_t, const std::vector<std::vector<RunResult>>& c) {
+                          for (const RunResult& r : c[0]) acc.Add(r);
+                        });
+  return acc.Summary(mc.seed);
+}
+
 int RunSweep(const SweepArgs& args) {
   const MonteCarloOptions mc = ValidateRunOptions(args.run);
   if (args.months < 1 || args.months > 36) {
@@ -47,11 +62,7 @@ int RunSweep(const SweepArgs& args) {
                             args.run.quiet);
   for (int m = 0; m < args.months; ++m) {
     const Plan shifted = ShiftStart(plan, AddMonths(first, m));
-    const Simulator sim(shifted);
-    const std::vector<RunResult> runs = RunMonteCarlo(sim, mc, &progress);
-    const ForecastSummary s =
-        SummarizeForecast(shifted.matrix, sim.deadline_steps(), sim.horizon_steps(), runs,
-                          mc.seed, sim.relaxed_share());
+    const ForecastSummary s = ForecastInChunks(shifted, mc, &progress);
     RequirePlausible(s, "the forecast for the start " + FormatDate(shifted.start));
     rows.push_back(
         {shifted.start, shifted.deadline, s.p50, s.p80, s.p90, s.p_complete_by_deadline});
@@ -66,11 +77,7 @@ int RunSweep(const SweepArgs& args) {
                     args.run.force, inputs, "--json");
   }
   if (!args.report_path.empty()) {
-    const Simulator sim(plan);
-    const std::vector<RunResult> runs = RunMonteCarlo(sim, mc, nullptr);
-    const ForecastSummary own =
-        SummarizeForecast(plan.matrix, sim.deadline_steps(), sim.horizon_steps(), runs,
-                          mc.seed, sim.relaxed_share());
+    const ForecastSummary own = ForecastInChunks(plan, mc, nullptr);
     RequirePlausible(own, "the forecast");
     HtmlReportInput in;
     in.plan = &plan;

@@ -100,12 +100,12 @@ std::string FormatCellsCsv(const Plan& plan, const ForecastSummary& s,
 std::string FormatCompletionCurveCsv(const ForecastSummary& s, const ReportContext& ctx) {
   std::string out = GeneratorLine(ctx);
   out += Row({"week", "runs_complete", "share_complete"});
-  const std::vector<double>& w = s.completion_weeks;  // ascending, +inf last
-  const double n = static_cast<double>(w.size());
-  for (size_t i = 0; i < w.size() && std::isfinite(w[i]); ++i) {
-    // One row per distinct completion time: the curve's steps.
-    if (i + 1 < w.size() && w[i + 1] == w[i]) continue;
-    out += Row({Num(w[i]), std::to_string(i + 1), Num(static_cast<double>(i + 1) / n)});
+  const double n = static_cast<double>(s.runs);
+  long done = 0;
+  // One row per distinct completion time: the curve's steps.
+  for (const CompletionCount& c : s.completion_counts) {
+    done += c.runs;
+    out += Row({Num(c.weeks), std::to_string(done), Num(static_cast<double>(done) / n)});
   }
   return out;
 }

@@ -51,24 +51,23 @@ std::string SeriesLegend(double x, double y) {
   return out;
 }
 
-// Empirical distribution function as a step path over the finite values.
-std::string EcdfPath(const PlotArea& a, const std::vector<double>& finite, size_t n,
-                     double x_hi) {
+// Empirical distribution function as a step path over the completion counts
+// of n runs.
+std::string EcdfPath(const PlotArea& a, const std::vector<CompletionCount>& counts,
+                     long n, double x_hi) {
   const double total = static_cast<double>(n);
   std::string d = "M" + SvgNum(a.x(0.0)) + " " + SvgNum(a.y(0.0));
-  auto step_to = [&](double x, size_t done) {
+  auto step_to = [&](double x, long done) {
     d += " H" + SvgNum(a.x(x)) + " V" + SvgNum(a.y(static_cast<double>(done) / total));
   };
-  if (finite.size() <= kMaxCurvePoints) {
-    for (size_t i = 0; i < finite.size(); ++i) {
-      if (i + 1 < finite.size() && finite[i + 1] == finite[i]) continue;
-      step_to(finite[i], i + 1);
-    }
+  long done = 0;
+  if (counts.size() <= kMaxCurvePoints) {
+    for (const CompletionCount& c : counts) step_to(c.weeks, done += c.runs);
   } else {
+    size_t next = 0;
     for (size_t k = 1; k <= kMaxCurvePoints; ++k) {
-      const double x = finite.back() * static_cast<double>(k) / kMaxCurvePoints;
-      const size_t done = static_cast<size_t>(
-          std::upper_bound(finite.begin(), finite.end(), x) - finite.begin());
+      const double x = counts.back().weeks * static_cast<double>(k) / kMaxCurvePoints;
+      while (next < counts.size() && counts[next].weeks <= x) done += counts[next++].runs;
       step_to(x, done);
     }
   }
@@ -85,15 +84,13 @@ std::string QuantileLabel(const char* name, double weeks, const Date& start) {
 
 std::string CompletionCurveSvg(const ForecastSummary& s, const Date& start,
                                const Date& deadline) {
-  const size_t n = s.completion_weeks.size();
-  if (n == 0) return "";
-  std::vector<double> finite;
-  for (const double w : s.completion_weeks) {
-    if (std::isfinite(w)) finite.push_back(w);
-  }
-  std::sort(finite.begin(), finite.end());
-  double x_hi = std::max(s.deadline_weeks, finite.empty() ? 0.0 : finite.back());
-  if (finite.size() < n) x_hi = std::max(x_hi, s.horizon_weeks);
+  const long n = s.runs;
+  if (n <= 0) return "";
+  const std::vector<CompletionCount>& counts = s.completion_counts;  // ascending
+  long complete = 0;
+  for (const CompletionCount& c : counts) complete += c.runs;
+  double x_hi = std::max(s.deadline_weeks, counts.empty() ? 0.0 : counts.back().weeks);
+  if (complete < n) x_hi = std::max(x_hi, s.horizon_weeks);
   const AxisSpec x_axis = WeeksAxis(x_hi, 10, "Weeks from the start");
   const AxisSpec y_axis = ShareAxis("Campaigns complete, % of runs");
 
@@ -103,7 +100,7 @@ std::string CompletionCurveSvg(const ForecastSummary& s, const Date& start,
   SetDomains(&a, 0.0, x_axis.ticks.back(), 0.0, 1.0);
   std::string out = SvgOpen(a.width, a.height, "Completion-time curve");
   out += SvgAxes(a, x_axis, y_axis);
-  out += EcdfPath(a, finite, n, x_axis.ticks.back());
+  out += EcdfPath(a, counts, n, x_axis.ticks.back());
 
   std::vector<Marker> markers;
   markers.push_back({s.deadline_weeks, "Deadline " + FormatDate(deadline), "deadline"});

@@ -15,7 +15,7 @@
 namespace planner {
 
 // Share of runs complete (y, 0-100 %) against weeks from the start (x): the
-// empirical distribution function of s.completion_weeks, with vertical
+// empirical distribution function of s.completion_counts, with vertical
 // markers at P50, P80, P90 (labelled with weeks and done-by date) and at the
 // deadline. Incomplete runs never complete, so the curve tops out at
 // 1 - p_incomplete_at_horizon.

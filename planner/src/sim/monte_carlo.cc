@@ -6,8 +6,10 @@
 #include <mutex>
 #include <thread>
 
+#include "planner/calendar.h"
 #include "planner/forecast.h"
 #include "planner/quantile.h"
+#include "sim/value_histogram.h"
 
 namespace planner {
 
@@ -17,48 +19,91 @@ int EffectiveThreads(int requested) {
   return hw == 0 ? 1 : static_cast<int>(hw);
 }
 
-std::vector<RunResult> RunMonteCarlo(const Simulator& sim,
-                                     const MonteCarloOptions& options,
-                                     ProgressSink* progress) {
-  std::vector<RunResult> results(static_cast<size_t>(options.runs));
-  std::atomic<long> next{0};
+namespace {
+
+// Shared progress count over the chunks of one call.
+struct ProgressCount {
+  ProgressSink* sink = nullptr;
+  std::mutex mutex;
   long done = 0;
-  std::mutex progress_mutex;
-  const long total = options.runs;
+  long total = 0;
+};
+
+// Runs [first, first + count) of every simulator into chunk[s][0..count).
+void RunChunk(const std::vector<const Simulator*>& sims, const MonteCarloOptions& options,
+              uint64_t first, long count, std::vector<std::vector<RunResult>>* chunk,
+              ProgressCount* progress) {
+  const long jobs = count * static_cast<long>(sims.size());
+  std::atomic<long> next{0};
   auto worker = [&]() {
-    for (long i = next++; i < total; i = next++) {
-      const uint64_t run = static_cast<uint64_t>(options.first_run + i);
+    for (long t = next++; t < jobs; t = next++) {
+      const size_t s = static_cast<size_t>(t / count);
+      const long j = t % count;
+      RunResult* out = &(*chunk)[s][static_cast<size_t>(j)];
+      const uint64_t run = first + static_cast<uint64_t>(j);
       if (options.state != nullptr) {
-        sim.Run(options.seed, run, *options.state, &results[i]);
+        sims[s]->Run(options.seed, run, *options.state, out);
       } else {
-        sim.Run(options.seed, run, &results[i]);
+        sims[s]->Run(options.seed, run, out);
       }
-      if (progress != nullptr) {
-        std::lock_guard<std::mutex> lock(progress_mutex);
-        progress->Update(++done, total);
+      if (progress->sink != nullptr) {
+        std::lock_guard<std::mutex> lock(progress->mutex);
+        progress->sink->Update(++progress->done, progress->total);
       }
     }
   };
-  const int threads = std::min<long>(EffectiveThreads(options.threads), total);
+  const int threads = static_cast<int>(std::min<long>(EffectiveThreads(options.threads), jobs));
   std::vector<std::thread> pool;
   for (int t = 1; t < threads; ++t) pool.emplace_back(worker);
   worker();
   for (std::thread& t : pool) t.join();
+}
+
+}  // namespace
+
+void RunMonteCarloInChunks(const std::vector<const Simulator*>& sims,
+                           const MonteCarloOptions& options, ProgressSink* progress,
+                           const ChunkFold& fold) {
+  ProgressCount count;
+  count.sink = progress;
+  count.total = static_cast<long>(options.runs) * static_cast<long>(sims.size());
+  // The chunk's results are reused from one chunk to the next (their
+  // per-cell buffers too), so memory stays at one chunk.
+  std::vector<std::vector<RunResult>> chunk(sims.size());
+  for (long done = 0; done < options.runs;) {
+    const long n = std::min<long>(kChunkRuns, options.runs - done);
+    for (std::vector<RunResult>& c : chunk) c.resize(static_cast<size_t>(n));
+    const uint64_t first = static_cast<uint64_t>(options.first_run + done);
+    RunChunk(sims, options, first, n, &chunk, &count);
+    fold(first, chunk);
+    done += n;
+  }
   if (progress != nullptr) progress->Finish();
+}
+
+std::vector<RunResult> RunMonteCarlo(const Simulator& sim,
+                                     const MonteCarloOptions& options,
+                                     ProgressSink* progress) {
+  std::vector<RunResult> results;
+  results.reserve(static_cast<size_t>(std::max(options.runs, 0)));
+  RunMonteCarloInChunks({&sim}, options, progress,
+                        [&](uint64_t, const std::vector<std::vector<RunResult>>& chunk) {
+                          results.insert(results.end(), chunk[0].begin(), chunk[0].end());
+                        });
   return results;
 }
 
 namespace {
 
-double CompletionCiWidth(const std::vector<RunResult>& runs, double quantile) {
-  std::vector<double> weeks;
-  weeks.reserve(runs.size());
-  for (const RunResult& r : runs) {
-    weeks.push_back(r.completion_step < 0 ? std::numeric_limits<double>::infinity()
-                                          : StepsToWeeks(r.completion_step));
-  }
-  std::sort(weeks.begin(), weeks.end());
-  const QuantileEstimate q = EstimateQuantile(weeks, quantile);
+double CompletionCiWidth(const ValueHistogram& steps, double quantile) {
+  const QuantileEstimate q = EstimateQuantile(
+      steps.total(),
+      [&](long rank) -> std::optional<double> {
+        const std::optional<double> step = steps.AtRank(rank);
+        if (!step) return std::nullopt;
+        return *step / kStepsPerWeek;
+      },
+      quantile);
   if (!q.ci_lo || !q.ci_hi) return std::numeric_limits<double>::infinity();
   return *q.ci_hi - *q.ci_lo;
 }
@@ -67,18 +112,23 @@ double CompletionCiWidth(const std::vector<RunResult>& runs, double quantile) {
 
 PrecisionResult RunToPrecision(const Simulator& sim, const MonteCarloOptions& options,
                                double quantile, double target_weeks, int max_runs,
-                               ProgressSink* progress) {
+                               ProgressSink* progress, const ChunkFold& fold) {
   PrecisionResult result;
+  // One bucket per step up to the horizon: exact counts of completion steps.
+  ValueHistogram completion(static_cast<size_t>(sim.horizon_steps()) + 1);
   MonteCarloOptions batch = options;
-  batch.first_run = options.first_run;
   batch.runs = std::min(options.runs, max_runs);
   for (;;) {
-    std::vector<RunResult> more = RunMonteCarlo(sim, batch, progress);
-    for (RunResult& r : more) result.runs.push_back(std::move(r));
+    RunMonteCarloInChunks({&sim}, batch, progress,
+                          [&](uint64_t first, const std::vector<std::vector<RunResult>>& c) {
+                            for (const RunResult& r : c[0]) completion.Add(r.completion_step);
+                            fold(first, c);
+                          });
     ++result.rounds;
-    result.ci_width_weeks = CompletionCiWidth(result.runs, quantile);
+    result.runs = completion.total();
+    result.ci_width_weeks = CompletionCiWidth(completion, quantile);
     result.target_met = result.ci_width_weeks <= target_weeks;
-    const int have = static_cast<int>(result.runs.size());
+    const int have = static_cast<int>(result.runs);
     if (result.target_met || have >= max_runs) return result;
     batch.first_run = options.first_run + have;
     batch.runs = std::min(have, max_runs - have);

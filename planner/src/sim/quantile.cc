@@ -25,13 +25,6 @@ long PointRank(long n, double p) {
   return std::clamp(k, 1L, n);
 }
 
-std::optional<double> FiniteAt(const std::vector<double>& sorted, long rank) {
-  if (rank < 1 || rank > static_cast<long>(sorted.size())) return std::nullopt;
-  const double x = sorted[static_cast<size_t>(rank - 1)];
-  if (!std::isfinite(x)) return std::nullopt;
-  return x;
-}
-
 }  // namespace
 
 RankInterval QuantileRankInterval(long n, double p, double confidence) {
@@ -72,17 +65,33 @@ RankInterval QuantileRankInterval(long n, double p, double confidence) {
   return r;
 }
 
-QuantileEstimate EstimateQuantile(const std::vector<double>& sorted, double p,
+QuantileEstimate EstimateQuantile(long n, const RankLookup& at, double p,
                                   double confidence) {
   QuantileEstimate q;
   q.p = p;
-  const long n = static_cast<long>(sorted.size());
   if (n < 1) return q;
-  q.value = FiniteAt(sorted, PointRank(n, p));
+  // Ranks 0 and n + 1 stand for "no bound".
+  auto finite_at = [&](long rank) -> std::optional<double> {
+    if (rank < 1 || rank > n) return std::nullopt;
+    return at(rank);
+  };
+  q.value = finite_at(PointRank(n, p));
   const RankInterval r = QuantileRankInterval(n, p, confidence);
-  q.ci_lo = FiniteAt(sorted, r.lo);  // rank 0: no lower bound
-  q.ci_hi = FiniteAt(sorted, r.hi);  // rank n + 1 or +inf: no upper bound
+  q.ci_lo = finite_at(r.lo);
+  q.ci_hi = finite_at(r.hi);
   return q;
+}
+
+QuantileEstimate EstimateQuantile(const std::vector<double>& sorted, double p,
+                                  double confidence) {
+  return EstimateQuantile(
+      static_cast<long>(sorted.size()),
+      [&](long rank) -> std::optional<double> {
+        const double x = sorted[static_cast<size_t>(rank - 1)];
+        if (!std::isfinite(x)) return std::nullopt;
+        return x;
+      },
+      p, confidence);
 }
 
 }  // namespace planner
