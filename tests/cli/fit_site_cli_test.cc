@@ -124,7 +124,8 @@ TEST(FitSiteCliTest, BadInputStopsWithALocatedMessage) {
   o = RunFillcast("fit-site " + kData + " --speed MAL --sectors 0 -o " + out);
   EXPECT_EQ(o.exit_code, 2);
   EXPECT_TRUE(
-      Has(o.output, "--sectors: 0 is out of range; must be at least 1 and at most 72"));
+      Has(o.output, "--sectors: '0' is invalid; expected a whole number from 1 to 72"))
+      << o.output;
   // Never over the input, never over a file fillcast did not write.
   o = RunFillcast("fit-site " + kData + " --speed MAL -o " + kData);
   EXPECT_EQ(o.exit_code, 2);

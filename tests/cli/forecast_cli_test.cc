@@ -85,10 +85,11 @@ void PrintTo(const BadFlagCase& c, std::ostream* os) { *os << "fillcast " << c.a
 
 class ForecastCliBadInputTest : public ::testing::TestWithParam<BadFlagCase> {};
 
+// Every input error, option parsing included, exits with status 2.
 TEST_P(ForecastCliBadInputTest, ExitsNonZeroWithClearMessage) {
   const BadFlagCase& c = GetParam();
   const Outcome o = RunFillcast(c.args);
-  EXPECT_NE(o.exit_code, 0) << o.output;
+  EXPECT_EQ(o.exit_code, 2) << o.output;
   EXPECT_NE(o.output.find(c.message), std::string::npos) << o.output;
 }
 
@@ -96,16 +97,39 @@ INSTANTIATE_TEST_SUITE_P(
     Flags, ForecastCliBadInputTest,
     ::testing::Values(
         BadFlagCase{"forecast " + Demo() + " --runs 0",
-                    "--runs: 0 is invalid; expected a whole number from 1 to 10000000"},
+                    "--runs: '0' is invalid; expected a whole number from 1 to 10000000"},
         BadFlagCase{"forecast " + Demo() + " --runs -5",
-                    "--runs: -5 is invalid; expected a whole number from 1 to 10000000"},
+                    "--runs: '-5' is invalid; expected a whole number from 1 to 10000000"},
         BadFlagCase{"forecast " + Demo() + " --threads -1",
-                    "--threads: -1 is invalid; expected 0 (all cores)"},
-        BadFlagCase{"forecast " + Demo() + " --runs many", "--runs"},
+                    "--threads: '-1' is invalid; expected 0 (all cores)"},
+        BadFlagCase{"forecast " + Demo() + " --runs many",
+                    "--runs: 'many' is invalid; expected a whole number from 1 to 10000000"},
+        BadFlagCase{"forecast " + Demo() + " --runs 1e3",
+                    "--runs: '1e3' is invalid; expected a whole number from 1 to 10000000"},
+        BadFlagCase{"forecast " + Demo() + " --seed -1",
+                    "--seed: '-1' is invalid; expected a whole number from 0 to "
+                    "18446744073709551615"},
+        // Non-finite numbers once switched --precision off silently (status 0).
+        BadFlagCase{"forecast " + Demo() + " --precision nan",
+                    "--precision: 'nan' is invalid; expected a width in weeks above 0"},
+        BadFlagCase{"forecast " + Demo() + " --precision inf",
+                    "--precision: 'inf' is invalid; expected a width in weeks above 0"},
+        BadFlagCase{"forecast " + Demo() + " --relax nan",
+                    "--relax: 'nan' is invalid; expected a share above 0 and below 1"},
+        BadFlagCase{"forecast " + Demo() + " --max-runs 2.5",
+                    "--max-runs: '2.5' is invalid; expected a whole number from --runs"},
+        BadFlagCase{"start-sweep " + Demo() + " --months 0x10",
+                    "--months: '0x10' is invalid; expected a whole number from 1 to 36"},
+        BadFlagCase{"fit-site x.csv -o y.yaml --calm-ms -inf",
+                    "--calm-ms: '-inf' is invalid; expected a speed above 0"},
+        BadFlagCase{"log add " + Demo() + " x.csv --utc-offset NaN",
+                    "--utc-offset: 'NaN' is invalid; expected hours from -14 to 14"},
+        BadFlagCase{"forecast " + Demo() + " --bogus",
+                    "The following argument was not expected: --bogus (see fillcast --help)"},
         BadFlagCase{"forecast /nonexistent/plan.yaml", "/nonexistent/plan.yaml"},
         BadFlagCase{"forecast", "plan is required"},
         BadFlagCase{"forecast " + Demo() + " --relax 1.5",
-                    "--relax: 1.5 is invalid; expected a share above 0 and below 1"},
+                    "--relax: '1.5' is invalid; expected a share above 0 and below 1"},
         BadFlagCase{"forecast " + Demo() + " --precision 1 --precision-of p99",
                     "--precision-of: 'p99' is invalid; expected p50, p80 or p90"},
         BadFlagCase{

@@ -121,7 +121,7 @@ TEST(ProgressCliTest, BadInputNamesTheProblem) {
   r = RunFillcast("progress " + kPlan + " --log " + log + " --as-of 2027-02-30");
   EXPECT_EQ(r.output,
             "fillcast: error: --as-of: '2027-02-30' is not a date; expected "
-            "YYYY-MM-DD (a real calendar date)\n");
+            "YYYY-MM-DD (a real calendar date in the years 1900 to 2200)\n");
   r = RunFillcast("progress " + kPlan + " --log " + log + " --as-of 2031-01-01");
   EXPECT_EQ(r.exit_code, 2);
   EXPECT_EQ(r.output,

@@ -8,6 +8,7 @@
 #include <sys/wait.h>
 #include <unistd.h>
 
+#include <cstdio>
 #include <filesystem>
 #include <fstream>
 #include <iterator>
@@ -17,6 +18,7 @@
 #include "io/reader_test_util.h"
 #include "io/records_csv_reader.h"
 #include "planner/calendar.h"
+#include "planner/error.h"
 
 namespace planner {
 namespace {
@@ -212,6 +214,77 @@ TEST_F(CampaignLogTest, StoredProgressIsReplacedOnlyForTheSameInputs) {
   EXPECT_EQ(h[0].seed, 18446744073709551615ULL);
   EXPECT_FALSE(h[0].p80_weeks.has_value());
   EXPECT_EQ(*h[0].p50_date, "2027-12-06");
+}
+
+}  // namespace
+}  // namespace planner
+
+namespace planner {
+namespace {
+
+class CampaignLogBatchTest : public CampaignLogTest {};
+
+// `log add` of several files is one transaction: a process killed in the
+// second file leaves none of the first in the log.
+TEST_F(CampaignLogBatchTest, KilledBatchAddsNoneOfItsFiles) {
+  { CampaignLog log(path_, true); }
+  const std::vector<LoggedRow> first = Rows(Csv(0, 3000), "a.csv");
+  const std::vector<LoggedRow> second = Rows(Csv(3000, 3000), "b.csv");
+  const pid_t child = fork();
+  ASSERT_GE(child, 0);
+  if (child == 0) {
+    CampaignLog log(path_, false);
+    IngestOptions o;
+    o.after_row = [](int64_t done) {
+      if (done == 1500) {
+        static int files_started = 0;
+        if (++files_started == 2) ::kill(::getpid(), SIGKILL);
+      }
+    };
+    log.IngestAll({{"a.csv", &first}, {"b.csv", &second}}, o);
+    ::_exit(0);  // not reached
+  }
+  int status = 0;
+  ASSERT_EQ(waitpid(child, &status, 0), child);
+  ASSERT_TRUE(WIFSIGNALED(status));
+  CampaignLog log(path_, false);
+  EXPECT_EQ(log.RecordCount(), 0);
+  const std::vector<IngestReport> reports =
+      log.IngestAll({{"a.csv", &first}, {"b.csv", &second}}, {});
+  ASSERT_EQ(reports.size(), 2u);
+  EXPECT_EQ(reports[0].added, 3000);
+  EXPECT_EQ(reports[1].added, 3000);
+  EXPECT_EQ(log.RecordCount(), 6000);
+}
+
+// Several processes creating the same log at once: the first makes it, the
+// others wait for its write lock and then use it. None fails with "table
+// already exists".
+TEST_F(CampaignLogBatchTest, ProcessesCreatingOneLogAtOnceAllSucceed) {
+  const std::vector<LoggedRow> rows = Rows(Csv(0, 2000), "a.csv");
+  std::vector<pid_t> children;
+  for (int i = 0; i < 4; ++i) {
+    const pid_t child = fork();
+    ASSERT_GE(child, 0);
+    if (child == 0) {
+      try {
+        CampaignLog log(path_, true, "plan");
+        log.IngestAll({{"a.csv", &rows}}, {});
+      } catch (const InputError& e) {
+        std::fprintf(stderr, "%s\n", e.what());
+        ::_exit(2);
+      }
+      ::_exit(0);
+    }
+    children.push_back(child);
+  }
+  for (const pid_t child : children) {
+    int status = 0;
+    ASSERT_EQ(waitpid(child, &status, 0), child);
+    EXPECT_TRUE(WIFEXITED(status) && WEXITSTATUS(status) == 0);
+  }
+  CampaignLog log(path_, false);
+  EXPECT_EQ(log.RecordCount(), 2000);
 }
 
 }  // namespace

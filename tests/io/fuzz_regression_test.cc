@@ -70,16 +70,25 @@ TEST(FuzzRegressionTest, MoreThan32CurtailmentRulesAreRejected) {
             "plan.yaml:8:3: curtailment: 33 rules given; at most 32 are allowed");
 }
 
-// A device without an end (or without a size) was read until memory ran out.
-TEST(FuzzRegressionTest, PlanFromAnEndlessDeviceStopsAt16MiB) {
+// A device without an end (or without a size) was read until memory ran out;
+// devices and pipes are now refused before they are opened.
+TEST(FuzzRegressionTest, PlanFromAnEndlessDeviceIsRefused) {
   EXPECT_EQ(ErrorOf([] { LoadPlan("/dev/zero"); }),
-            "/dev/zero: is more than 16 MiB; a plan file is a small YAML text (at most "
-            "16 MiB)");
+            "/dev/zero: cannot open plan file: it is a character device; fillcast reads "
+            "regular files only (save the data to a file first)");
 }
 
-TEST(FuzzRegressionTest, MetCsvFromAnEndlessDeviceStopsAtALongLine) {
+TEST(FuzzRegressionTest, MetCsvFromAnEndlessDeviceIsRefused) {
   EXPECT_EQ(ErrorOf([] { LoadMetCsv("/dev/zero", MetCsvOptions{}); }),
-            "/dev/zero:1: line is longer than 1 MiB; expected a CSV file of met data, "
+            "/dev/zero: cannot open met data file: it is a character device; fillcast "
+            "reads regular files only (save the data to a file first)");
+}
+
+// A very long line still stops at 1 MiB (a regular file this time).
+TEST(FuzzRegressionTest, MetCsvWithAnEndlessLineStopsAt1MiB) {
+  std::istringstream in(std::string((1 << 20) + 10, '7'));
+  EXPECT_EQ(ErrorOf([&] { ReadMetCsv(in, "mast.csv", MetCsvOptions{}); }),
+            "mast.csv:1: line is longer than 1 MiB; expected a CSV file of met data, "
             "one record per line");
 }
 

@@ -185,7 +185,7 @@ TEST(MetCsvReaderTest, DropsBadSpeedsPerReasonWithLocatedExamples) {
       "mast.csv:10: column 'direction_deg': '400' is outside 0 to 360 degrees",
       "mast.csv:11: 3 cells; the header has 4",
       "mast.csv:12: column 'timestamp': '03/01/2024 01:40' is not a timestamp; valid: "
-      "YYYY-MM-DD, YYYY-MM-DD HH:MM[:SS] or YYYY-MM-DDTHH:MM[:SS]",
+      "YYYY-MM-DD, YYYY-MM-DD HH:MM[:SS] or YYYY-MM-DDTHH:MM[:SS] (years 1900 to 2200)",
   };
   EXPECT_EQ(s.read.examples, expected);
 }
@@ -346,8 +346,8 @@ INSTANTIATE_TEST_SUITE_P(
             "time,speed_ms\n2024-03-01,5\n",
             {},
             kFile,
-            "mast.csv: only 1 usable row; at least 2 are needed to find the time "
-            "step"}),
+            "mast.csv: only 1 usable row of 1 read; at least 2 are needed to find the "
+            "time step"}),
     [](const ::testing::TestParamInfo<FileErrorCase>& info) { return info.param.name; });
 
 TEST(MetCsvReaderTest, FileThatCannotBeOpenedIsAnInputError) {
@@ -356,6 +356,58 @@ TEST(MetCsvReaderTest, FileThatCannotBeOpenedIsAnInputError) {
   const std::string folder = std::filesystem::temp_directory_path().string();
   EXPECT_EQ(ErrorOf([&] { LoadMetCsv(folder, {}); }),
             folder + ": cannot open met data file: it is a folder");
+}
+
+}  // namespace
+}  // namespace planner
+
+namespace planner {
+namespace {
+
+// RFC 4180 (common practice for CSV): a quoted cell ends at its closing quote.
+TEST(MetCsvReaderTest, QuoteLeftOpenOrTextAfterItIsAnErrorAtItsColumn) {
+  const struct {
+    const char* line;
+    const char* error;  // "" = no error
+  } cases[] = {
+      {"a,\"b", ":7:3: unterminated quote"},
+      {"\"a\"\"", ":7:1: unterminated quote"},
+      {"a, \"b\" x,c", ":7:8: text after the closing quote"},
+      {"a, \"b\" ,\"\"", ""},
+      {"\"\"\"q\"\"\"", ""},
+  };
+  for (const auto& c : cases) {
+    SCOPED_TRACE(c.line);
+    std::string error;
+    try {
+      SplitCsvLine(c.line, SourceLocation{"mast.csv", 7, 0});
+    } catch (const InputError& e) {
+      error = e.what();
+    }
+    if (*c.error == '\0') {
+      EXPECT_EQ(error, "");
+    } else {
+      EXPECT_EQ(error.substr(0, 8 + std::string(c.error).size()),
+                std::string("mast.csv") + c.error);
+    }
+  }
+}
+
+TEST(MetCsvReaderTest, RowsDroppedAsOutOfOrderAreNamedWhenTooFewRemain) {
+  // Newest first: every row after the first is earlier than the one kept.
+  const std::string text =
+      "timestamp,speed_ms\n2024-03-01 00:20,7\n2024-03-01 00:10,7\n2024-03-01 00:00,7\n";
+  std::string error;
+  try {
+    Read(text);
+  } catch (const InputError& e) {
+    error = e.what();
+  }
+  EXPECT_EQ(error,
+            "mast.csv: only 1 usable row of 3 read; at least 2 are needed to find the time "
+            "step; dropped: timestamp out of order: 2; first: mast.csv:3: column "
+            "'timestamp': '2024-03-01 00:10' is earlier than 2024-03-01 00:20 (line 2); "
+            "rows must be in time order; sort the file by its timestamps, oldest first");
 }
 
 }  // namespace

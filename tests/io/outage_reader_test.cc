@@ -177,7 +177,7 @@ std::vector<BadInput> BadInputs() {
        "from, to, turbine, data_acquisition"},
       {"planned outage on 31 June", Replace(p, "2027-07-12", "2027-06-31"),
        "plan.yaml:12:13: outages.planned[0].from: 2027-06-31 is not a valid date; "
-       "expected YYYY-MM-DD, a real calendar date"},
+       "expected YYYY-MM-DD, a real calendar date in the years 1900 to 2200"},
       {"no planned outages", kBase + "outages:\n  planned: []\n",
        "plan.yaml:10:12: outages.planned: is empty; give at least one planned outage, or "
        "leave the field out"},

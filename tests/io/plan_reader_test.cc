@@ -188,7 +188,7 @@ std::vector<BadPlan> BadPlans() {
        "the deadline must be later"},
       {"impossible date", Replace(b, "2027-03-01", "2027-02-30"),
        "plan.yaml:3:19: campaign.start: 2027-02-30 is not a valid date; expected "
-       "YYYY-MM-DD, a real calendar date"},
+       "YYYY-MM-DD, a real calendar date in the years 1900 to 2200"},
       {"date as a list", Replace(b, "start: 2027-03-01", "start: [2027, 3, 1]"),
        "plan.yaml:3:19: campaign.start: expected a date YYYY-MM-DD, got a list of 3 "
        "items"},

@@ -79,16 +79,18 @@ TEST(RecordsCsvReaderTest, ProblemsAreLocatedWordForWord) {
   const std::vector<BadInput> cases = {
       {"not a timestamp", Replace(kGood, "2027-03-01 00:00", "03/01/2027 00:00"),
        "log.csv:2:1: column 'timestamp': '03/01/2027 00:00' is not a timestamp; valid: "
-       "YYYY-MM-DD HH:MM[:SS] or YYYY-MM-DDTHH:MM[:SS] on the 10-minute grid" +
+       "YYYY-MM-DD HH:MM[:SS] or YYYY-MM-DDTHH:MM[:SS] (years 1900 to 2200) on the "
+       "10-minute grid" +
            tail},
       {"date only", Replace(kGood, "2027-03-01 00:00", "2027-03-01"),
        "log.csv:2:1: column 'timestamp': '2027-03-01' is not a timestamp; valid: "
-       "YYYY-MM-DD HH:MM[:SS] or YYYY-MM-DDTHH:MM[:SS] on the 10-minute grid" +
+       "YYYY-MM-DD HH:MM[:SS] or YYYY-MM-DDTHH:MM[:SS] (years 1900 to 2200) on the "
+       "10-minute grid" +
            tail},
       {"off the grid", Replace(kGood, "2027-03-01 00:00", "2027-03-01 00:05"),
        "log.csv:2:1: column 'timestamp': '2027-03-01 00:05' is not on the 10-minute "
-       "grid; valid: YYYY-MM-DD HH:MM[:SS] or YYYY-MM-DDTHH:MM[:SS] on the 10-minute "
-       "grid (minutes 00, 10, ..., 50 and seconds 00)" +
+       "grid; valid: YYYY-MM-DD HH:MM[:SS] or YYYY-MM-DDTHH:MM[:SS] (years 1900 to "
+       "2200) on the 10-minute grid (minutes 00, 10, ..., 50 and seconds 00)" +
            tail},
       {"negative speed", Replace(kGood, "7.4", "-7.4"),
        "log.csv:2:2: column 'speed_ms': '-7.4' is out of range; valid: a mean speed "
@@ -148,6 +150,34 @@ TEST(RecordsCsvReaderTest, SeveralProblemsAreListedThenCounted) {
 TEST(RecordsCsvReaderTest, MissingFileIsNamed) {
   EXPECT_EQ(ErrorOf([] { LoadRecordsCsv("/nonexistent/log.csv", {}); }),
             "/nonexistent/log.csv: cannot open records file: no such file");
+}
+
+}  // namespace
+}  // namespace planner
+
+namespace planner {
+namespace {
+
+// RFC 4180 (common practice for CSV): a quoted field ends at its closing
+// quote. A quote left open must not run on or swallow the rest of the file.
+TEST(RecordsCsvReaderTest, UnterminatedQuoteIsReportedWhereItOpens) {
+  const std::string text =
+      Replace(kGood, "2027-03-01 00:10,7.9,NA,360,parked", "2027-03-01 00:10,\"7.9,NA,360,parked");
+  EXPECT_EQ(ErrorOf([&] { Read(text); }),
+            "log.csv:3:18: unterminated quote: the \" that opens this cell is not closed "
+            "on this line; close it with \" (a quote inside a cell is written \"\"; cells "
+            "holding line breaks are not read)");
+  EXPECT_EQ(ErrorOf([&] { Read(Replace(kGood, "7.4,0.81", "\"7.4\"x,0.81")); }),
+            "log.csv:2:23: text after the closing quote of a cell; a quoted cell ends at "
+            "its closing \" (write a quote inside it as \"\")");
+}
+
+TEST(RecordsCsvReaderTest, LinesEndingInCarriageReturnOnlyAreNamed) {
+  std::string text = kGood;
+  for (char& c : text) c = c == '\n' ? '\r' : c;
+  EXPECT_EQ(ErrorOf([&] { Read(text); }),
+            "log.csv:1:66: a carriage return (CR) inside the line: the file's lines end in "
+            "CR only (an old Mac format); save it with LF or CR LF line ends");
 }
 
 }  // namespace

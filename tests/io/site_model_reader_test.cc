@@ -191,11 +191,16 @@ std::vector<BadSite> BadSites() {
        "site.yaml:3:36: sectors[0].weibull_a_ms: 0 is out of range; must be above 0 and "
        "at most 30 m/s"},
       {"weibull k negative", Replace(b, "weibull_k: 2.2", "weibull_k: -1"),
-       "site.yaml:4:50: sectors[1].weibull_k: -1 is out of range; must be above 0 and at "
-       "most 20"},
+       "site.yaml:4:50: sectors[1].weibull_k: -1 is out of range; must be at least 1 and "
+       "at most 20"},
+      // A shape near 0 would put the mean wind at millions of m/s
+      // (A * Gamma(1 + 1/k), Gamma(11) = 3,628,800 for k = 0.1).
+      {"weibull k near zero", Replace(b, "weibull_k: 2.2", "weibull_k: 0.1"),
+       "site.yaml:4:50: sectors[1].weibull_k: 0.1 is out of range; must be at least 1 and "
+       "at most 20"},
       {"weibull k too large", Replace(b, "weibull_k: 2.2", "weibull_k: 25"),
-       "site.yaml:4:50: sectors[1].weibull_k: 25 is out of range; must be above 0 and at "
-       "most 20"},
+       "site.yaml:4:50: sectors[1].weibull_k: 25 is out of range; must be at least 1 and "
+       "at most 20"},
       {"missing weibull k", Replace(b, ", weibull_k: 2}", "}"),
        "site.yaml:3:5: sectors[0].weibull_k: required field is missing"},
       {"negative frequency",

@@ -94,16 +94,23 @@ TEST(SiteModelWriterTest, StartsWithFillcastsMarkAndTheComments) {
   site.name = "Flat";
   site.sectors = {Sector{1.0, Weibull{8.0, 2.0}}};
   const std::string text = FormatSiteModelYaml(site, {"Fitted from x.csv."});
-  EXPECT_EQ(
-      text.rfind("# generator=fillcast " FILLCAST_VERSION "\n# Fitted from x.csv.\n", 0),
-      0u)
+  EXPECT_EQ(text.rfind("# generator=fillcast " FILLCAST_VERSION
+                       " fillcast-seal:0000000000000000\n# Fitted from x.csv.\n",
+                       0),
+            0u)
       << text;
   EXPECT_NE(text.find("  class: \"A\"\n"), std::string::npos) << text;  // I_ref 0.16
-  // cli/output_file.h recognises the file as fillcast's, so a new fit may
-  // replace it without --force.
+  // Written as every output file is (cli/output_file.h), it carries a valid
+  // seal, so a new fit may replace it without --force; the unsealed text
+  // (or the file edited) would not.
   const auto path = std::filesystem::temp_directory_path() / "fillcast-writer-mark.yaml";
-  std::ofstream(path) << text;
+  std::filesystem::remove(path);
+  WriteOutputFile(path.string(), text, false, {}, "-o");
   EXPECT_TRUE(WrittenByFillcast(path.string()));
+  std::ofstream(path, std::ios::app) << "# my note\n";
+  EXPECT_FALSE(WrittenByFillcast(path.string()));
+  std::ofstream(path) << text;
+  EXPECT_FALSE(WrittenByFillcast(path.string()));
   std::filesystem::remove(path);
 }
 

@@ -505,8 +505,8 @@ TEST(SiteFitTest, ImplausibleWeibullPointsAtTheUnits) {
       [&] { FitSite(MakeSeries(Daily(speeds), 86400, false, false), Options()); });
   EXPECT_TRUE(Has(message, "synthetic.csv: all directions: the fitted Weibull (A = "));
   EXPECT_TRUE(Has(message,
-                  ") is outside the site model's limits (A at most 30 m/s, k at most "
-                  "20); check the units: speeds were read as m/s (declared with "
+                  ") is outside the site model's limits (A at most 30 m/s, k from 1 "
+                  "to 20); check the units: speeds were read as m/s (declared with "
                   "--units)"));
 }
 

@@ -91,7 +91,7 @@ TEST(CsvExportTest, CellTableHasOneRowPerCellWithTheSummarysNumbers) {
   const std::vector<Row> rows =
       ParseCsv(FormatCellsCsv(plan, s, TestContext()), &comments);
   ASSERT_EQ(comments.size(), 1u);
-  EXPECT_EQ(comments[0], "# generator=fillcast 9.8.7");
+  EXPECT_EQ(comments[0], "# generator=fillcast 9.8.7 fillcast-seal:0000000000000000");
   ASSERT_EQ(rows.size(), s.cells.size() + 1);
   const Row& h = rows[0];
   for (const Row& r : rows) EXPECT_EQ(r.size(), h.size());
@@ -160,7 +160,7 @@ TEST(CsvExportTest, CompletionCurveIsTheEmpiricalDistributionFunction) {
   const std::vector<Row> rows =
       ParseCsv(FormatCompletionCurveCsv(s, TestContext()), &comments);
   ASSERT_EQ(comments.size(), 1u);
-  EXPECT_EQ(comments[0], "# generator=fillcast 9.8.7");
+  EXPECT_EQ(comments[0], "# generator=fillcast 9.8.7 fillcast-seal:0000000000000000");
   // One row per distinct completion time; share = runs done by then / all
   // runs, so the incomplete run keeps the curve below 1 (computed by hand).
   const std::vector<Row> expected = {{"week", "runs_complete", "share_complete"},

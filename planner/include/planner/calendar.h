@@ -26,7 +26,15 @@ struct Date {
   int day = 1;    // 1..31
 };
 
-// Parses "YYYY-MM-DD"; nullopt if malformed or not a real date.
+// The years fillcast reads in dates and timestamps (a campaign, its met data
+// and its log all fall well inside them).
+inline constexpr int kMinYear = 1900;
+inline constexpr int kMaxYear = 2200;
+// "a real calendar date in the years 1900 to 2200", for messages.
+inline constexpr char kDateRangeText[] = "a real calendar date in the years 1900 to 2200";
+
+// Parses "YYYY-MM-DD"; nullopt if malformed, not a real date or outside the
+// years kMinYear to kMaxYear.
 std::optional<Date> ParseDate(const std::string& text);
 
 // "YYYY-MM-DD".

@@ -16,6 +16,13 @@
 
 namespace planner {
 
+// The Weibull shapes a site model may hold. 10-minute mean wind speeds have k
+// of about 1.2 to 4 (common practice); below 1 the Weibull's mean exceeds
+// its scale A and grows without bound as k falls (A * Gamma(1 + 1/k)), which
+// is no wind climate.
+inline constexpr double kMinWeibullShape = 1.0;
+inline constexpr double kMaxWeibullShape = 20.0;
+
 struct Sector {
   double frequency = 0.0;  // share of time the wind comes from it, (0, 1]
   Weibull weibull;         // at hub height, annual

@@ -39,6 +39,7 @@ bool IsOutput(const CLI::Option& option) {
 void CheckGivenOptions(const CLI::App& app) {
   const CLI::App* command = Chosen(app);
   std::vector<OutputTarget> outputs;
+  std::vector<std::string> inputs;  // the files named as arguments
   bool force = false;
   for (const CLI::Option* option : command->get_options()) {
     if (option->count() == 0) continue;
@@ -52,9 +53,10 @@ void CheckGivenOptions(const CLI::App& app) {
                                                                    : type));
       }
       if (IsOutput(*option)) outputs.push_back({option->get_name(), value});
+      if (option->get_positional() || option->check_lname("log")) inputs.push_back(value);
     }
   }
-  CheckOutputTargets(outputs, force);
+  CheckOutputTargets(outputs, inputs, force);
 }
 
 }  // namespace planner

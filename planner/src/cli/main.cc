@@ -44,7 +44,10 @@ int main(int argc, char** argv) {
     app.parse(argc, argv);
   } catch (const CLI::ParseError& e) {
     if (e.get_exit_code() == 0) return app.exit(e);  // --help, --version
-    std::cerr << "fillcast: error: " << e.what() << " (see fillcast --help)\n";
+    // A checked value's message says what is valid; others point to --help.
+    const bool checked = dynamic_cast<const CLI::ValidationError*>(&e) != nullptr;
+    std::cerr << "fillcast: error: " << e.what() << (checked ? "" : " (see fillcast --help)")
+              << "\n";
     return kExitInputError;
   }
   try {

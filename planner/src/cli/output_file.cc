@@ -194,7 +194,8 @@ bool WrittenByFillcast(const std::string& path) {
   return HasValidSeal(text);
 }
 
-void CheckOutputTargets(const std::vector<OutputTarget>& targets, bool force) {
+void CheckOutputTargets(const std::vector<OutputTarget>& targets,
+                        const std::vector<std::string>& inputs, bool force) {
   for (std::size_t i = 0; i < targets.size(); ++i) {
     const OutputTarget& t = targets[i];
     if (t.path.empty()) {
@@ -207,7 +208,14 @@ void CheckOutputTargets(const std::vector<OutputTarget>& targets, bool force) {
                          targets[j].option + "; each output needs a file of its own.");
       }
     }
-    CheckTarget(t.option, t.path, Resolve(t.option, t.path), force, nullptr);
+    const std::string real = Resolve(t.option, t.path);
+    for (const std::string& input : inputs) {
+      if (SameFile(real, input)) {
+        throw InputError(t.option + ": " + t.path + " is an input of this run; refusing " +
+                         "to overwrite it. Choose another output path.");
+      }
+    }
+    CheckTarget(t.option, t.path, real, force, nullptr);
   }
 }
 

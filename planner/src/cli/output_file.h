@@ -33,11 +33,13 @@ struct OutputTarget {
   std::string path;
 };
 
-// Checks, before any work, what WriteOutputFile would refuse (except the
-// inputs of the run, which are known only once the plan is read): an empty
-// path, two outputs to one file, a folder or other non-regular file, and an
-// existing file fillcast did not write (without --force).
-void CheckOutputTargets(const std::vector<OutputTarget>& targets, bool force);
+// Checks, before any work, what WriteOutputFile would refuse: an empty path,
+// two outputs to one file, one of `inputs` (the files named on the command
+// line; those a plan names are known only once it is read), a folder or
+// other non-regular file, and an existing file fillcast did not write
+// (without --force).
+void CheckOutputTargets(const std::vector<OutputTarget>& targets,
+                        const std::vector<std::string>& inputs, bool force);
 
 // Writes contents (sealed, see above) to path. `inputs` are the files this
 // run read; writing over one of them is always refused. `option` names the

@@ -87,7 +87,7 @@ Date AsOfDate(const ProgressArgs& args, const std::vector<LoggedRecord>& records
     const std::optional<Date> d = ParseDate(args.as_of);
     if (!d) {
       throw InputError("--as-of: '" + args.as_of +
-                       "' is not a date; expected YYYY-MM-DD (a real calendar date)");
+                       "' is not a date; expected YYYY-MM-DD (" + kDateRangeText + ")");
     }
     return *d;
   }

@@ -215,11 +215,17 @@ IngestReport CampaignLog::IngestRows(const std::string& file,
   IngestReport report;
   report.file = file;
   report.rows = static_cast<int64_t>(rows.size());
-  SqliteStatement add_ingest(*db_,
-                             "INSERT INTO ingests (file, ingested_at, rows, added, "
-                             "already_logged, conflicting) VALUES (?, ?, 0, 0, 0, 0)");
-  add_ingest.Bind(1, file).Bind(2, options.now_utc).Step();
-  const int64_t ingest_id = db_->LastInsertId();
+  // The file's ingest row is written with its first new record: a file that
+  // adds nothing leaves the log exactly as it was.
+  int64_t ingest_id = -1;
+  auto ingest = [&] {
+    if (ingest_id >= 0) return ingest_id;
+    SqliteStatement add(*db_,
+                        "INSERT INTO ingests (file, ingested_at, rows, added, "
+                        "already_logged, conflicting) VALUES (?, ?, 0, 0, 0, 0)");
+    add.Bind(1, file).Bind(2, options.now_utc).Step();
+    return ingest_id = db_->LastInsertId();
+  };
   SqliteStatement find(*db_, std::string("SELECT ") + kRecordColumns +
                                  ", ingests.file, records.source_line FROM records "
                                  "JOIN ingests ON ingests.id = records.ingest_id "
@@ -255,7 +261,7 @@ IngestReport CampaignLog::IngestRows(const std::string& file,
           .Bind(6, static_cast<int64_t>(r.quality_ok ? 1 : 0))
           .BindOrNull(
               7, r.event.empty() ? std::nullopt : std::optional<std::string>(r.event))
-          .Bind(8, ingest_id)
+          .Bind(8, ingest())
           .Bind(9, row.line)
           .Step();
       ++report.added;
@@ -263,9 +269,7 @@ IngestReport CampaignLog::IngestRows(const std::string& file,
     ++done;
     if (options.after_row) options.after_row(done);
   }
-  if (report.added == 0) {  // nothing new: leave no trace of this file
-    SqliteStatement drop(*db_, "DELETE FROM ingests WHERE id = ?");
-    drop.Bind(1, ingest_id).Step();
+  if (report.added == 0) {  // nothing new: nothing written
     report.records_in_log = RecordCount();
     return report;
   }

@@ -17,5 +17,14 @@ bool ReadCappedLine(std::istream& in, std::vector<char>& buffer, std::string* li
   return true;
 }
 
+void CheckNoLoneCarriageReturn(const std::string& line, const std::string& file,
+                               int64_t line_no) {
+  const std::size_t cr = line.find('\r');
+  if (cr == std::string::npos || cr + 1 == line.size()) return;
+  ThrowAt(SourceLocation{file, static_cast<int>(line_no), static_cast<int>(cr) + 1}, "",
+          "a carriage return (CR) inside the line: the file's lines end in CR only (an "
+          "old Mac format); save it with LF or CR LF line ends");
+}
+
 }  // namespace io
 }  // namespace planner

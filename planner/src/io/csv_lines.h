@@ -24,6 +24,12 @@ inline constexpr std::size_t kMaxCsvLineBytes = 1 << 20;
 bool ReadCappedLine(std::istream& in, std::vector<char>& buffer, std::string* line,
                     const std::string& file, int64_t line_no, const std::string& expected);
 
+// Throws InputError at file:line_no:column if `line` holds a carriage return
+// (CR) that does not end it: the file's lines then end in CR only (an old
+// Mac format), which would otherwise read as one long line.
+void CheckNoLoneCarriageReturn(const std::string& line, const std::string& file,
+                               int64_t line_no);
+
 // Feeds the lines of `in` to parser.ReadHeader(line, line_no) and
 // parser.ReadRow(line, line_no) as described above. Throws InputError
 // "<file>: is empty; expected a header row naming the columns, then one row
@@ -39,6 +45,7 @@ void FeedCsvLines(std::istream& in, const std::string& file_name, bool skip_comm
   while (ReadCappedLine(in, buffer, &line, file_name, line_no + 1, expected)) {
     ++line_no;
     if (line_no == 1 && line.compare(0, 3, "\xEF\xBB\xBF") == 0) line.erase(0, 3);
+    CheckNoLoneCarriageReturn(line, file_name, line_no);
     const std::size_t first = line.find_first_not_of(" \t\r");
     if (first == std::string::npos) continue;  // blank line
     if (skip_comments && line[first] == '#') continue;

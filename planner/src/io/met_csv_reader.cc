@@ -26,7 +26,7 @@ constexpr int64_t kSecondsPerDay = 86400;
 // Rows of met data are short; a line longer than this is the wrong file (or a
 // device such as /dev/zero, which has no line ends at all).
 const char kTimestampFormats[] =
-    "YYYY-MM-DD, YYYY-MM-DD HH:MM[:SS] or YYYY-MM-DDTHH:MM[:SS]";
+    "YYYY-MM-DD, YYYY-MM-DD HH:MM[:SS] or YYYY-MM-DDTHH:MM[:SS] (years 1900 to 2200)";
 const double kNaN = std::numeric_limits<double>::quiet_NaN();
 
 // Usual column names, compared without regard to case.
@@ -480,23 +480,30 @@ MetSeries Parser::Finish() {
   MetReadReport& r = series_.read;
   r.rows_kept = static_cast<int64_t>(series_.records.size());
   const SourceLocation where{file_, 0, 0};
+  std::string reasons;
+  for (int i = 0; i < kDropReasonCount; ++i) {
+    if (r.dropped[i] == 0) continue;
+    reasons += (reasons.empty() ? "" : ", ") +
+               std::string(DropReasonText(static_cast<DropReason>(i))) + ": " +
+               std::to_string(r.dropped[i]);
+  }
+  const std::string first = r.examples.empty() ? "" : "; first: " + r.examples.front();
+  const std::string sort_hint =
+      r.dropped[static_cast<int>(DropReason::kOutOfOrder)] > 0
+          ? "; sort the file by its timestamps, oldest first"
+          : "";
   if (r.rows_kept == 0) {
-    std::string reasons;
-    for (int i = 0; i < kDropReasonCount; ++i) {
-      if (r.dropped[i] == 0) continue;
-      reasons += (reasons.empty() ? "" : ", ") +
-                 std::string(DropReasonText(static_cast<DropReason>(i))) + ": " +
-                 std::to_string(r.dropped[i]);
-    }
     ThrowAt(where, "",
             "no usable rows: " + std::to_string(r.rows_read) + " read" +
-                (reasons.empty() ? "" : ", all dropped (" + reasons + ")") +
-                (r.examples.empty() ? "" : "; first: " + r.examples.front()));
+                (reasons.empty() ? "" : ", all dropped (" + reasons + ")") + first +
+                sort_hint);
   }
   if (r.rows_kept < 2) {
     ThrowAt(where, "",
-            "only " + std::to_string(r.rows_kept) +
-                " usable row; at least 2 are needed to find the time step");
+            "only " + std::to_string(r.rows_kept) + " usable row of " +
+                std::to_string(r.rows_read) + " read; at least 2 are needed to find the " +
+                "time step" + (reasons.empty() ? "" : "; dropped: " + reasons) + first +
+                sort_hint);
   }
   ComputeGrid();
   return std::move(series_);

@@ -164,7 +164,15 @@ CostModel ReadCost(const Field& f) {
 
 Plan ParsePlan(const std::string& yaml_text, const std::string& file_name,
                const std::string& base_dir) {
-  const FieldMap m(io::ParseDocument(yaml_text, file_name), kPlanFields);
+  const Field root = io::ParseDocument(yaml_text, file_name);
+  if (io::HasField(root, "sectors") && !io::HasField(root, "campaign") &&
+      !io::HasField(root, "capture_matrix")) {
+    ThrowAt(SourceLocation{file_name, 0, 0}, "",
+            "is a site model (it has 'sectors' and no 'campaign' or 'capture_matrix'), "
+            "not a campaign plan; give the plan here and name this file in the plan's "
+            "site_model field (docs/plan.md)");
+  }
+  const FieldMap m(root, kPlanFields);
   Plan plan;
   plan.name = io::ReadName(m, "name");
   plan.source_file = file_name;

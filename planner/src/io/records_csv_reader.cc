@@ -20,7 +20,8 @@ namespace {
 constexpr std::size_t kMaxQuotedChars = 40;
 const double kNaN = std::numeric_limits<double>::quiet_NaN();
 const char kTimestampFormats[] =
-    "YYYY-MM-DD HH:MM[:SS] or YYYY-MM-DDTHH:MM[:SS] on the 10-minute grid";
+    "YYYY-MM-DD HH:MM[:SS] or YYYY-MM-DDTHH:MM[:SS] (years 1900 to 2200) on the "
+    "10-minute grid";
 const char kStateWords[] = "production, parked, reduced, outage";
 const char kQualityWords[] = "ok, 1, true (passed) or rejected, 0, false (failed)";
 

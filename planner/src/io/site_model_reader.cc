@@ -47,7 +47,10 @@ Sector ReadSector(const Field& f) {
   sector.frequency = io::ReadNumber(m, "frequency", Interval("(]", 0, 1));
   sector.weibull.scale_ms =
       io::ReadNumber(m, "weibull_a_ms", Interval("(]", 0, 30, "m/s"));
-  sector.weibull.shape = io::ReadNumber(m, "weibull_k", Interval("(]", 0, 20));
+  // k below 1 is no 10-minute wind climate: the mean A * Gamma(1 + 1/k)
+  // exceeds A and grows without bound (k = 0.1 gives 3.6 million times A).
+  sector.weibull.shape =
+      io::ReadNumber(m, "weibull_k", Interval("[]", kMinWeibullShape, kMaxWeibullShape));
   return sector;
 }
 
@@ -205,7 +208,15 @@ TurbulenceModel ReadTurbulence(const Field& f) {
 }  // namespace
 
 SiteModel ParseSiteModel(const std::string& yaml_text, const std::string& file_name) {
-  const FieldMap m(io::ParseDocument(yaml_text, file_name), kSiteFields);
+  const Field root = io::ParseDocument(yaml_text, file_name);
+  for (const char* plan_field : {"campaign", "capture_matrix", "site_model"}) {
+    if (!io::HasField(root, plan_field)) continue;
+    ThrowAt(SourceLocation{file_name, 0, 0}, "",
+            std::string("is a campaign plan (it has '") + plan_field +
+                "'), not a site model; a site model has 'sectors' and 'turbulence' "
+                "(docs/site-model.md), and a plan names it in its site_model field");
+  }
+  const FieldMap m(root, kSiteFields);
   SiteModel site;
   site.name = io::ReadName(m, "name");
   site.description = io::ReadText(m, "description", "");

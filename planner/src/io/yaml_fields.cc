@@ -237,6 +237,14 @@ Field ParseDocument(const std::string& text, const std::string& file_name) {
   return root;
 }
 
+bool HasField(const Field& f, const std::string& key) {
+  if (!f.node.IsMap()) return false;
+  for (auto it = f.node.begin(); it != f.node.end(); ++it) {
+    if (it->first.IsScalar() && it->first.Scalar() == key) return true;
+  }
+  return false;
+}
+
 void Fail(const Field& f, const std::string& message) {
   ThrowAt(f.where, f.path, message);
 }
@@ -397,7 +405,7 @@ Date AsDate(const Field& f) {
   if (!f.node.IsScalar()) Fail(f, "expected a date YYYY-MM-DD, got " + Describe(f.node));
   const std::optional<Date> date = ParseDate(f.node.Scalar());
   if (!date) {
-    Fail(f, Text(f) + " is not a valid date; expected YYYY-MM-DD, a real calendar date");
+    Fail(f, Text(f) + " is not a valid date; expected YYYY-MM-DD, " + kDateRangeText);
   }
   return *date;
 }

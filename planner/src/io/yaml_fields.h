@@ -39,6 +39,10 @@ std::string ReadInputFile(const std::string& path, const std::string& what);
 // line and column; a second document in the same text is an error.
 Field ParseDocument(const std::string& text, const std::string& file_name);
 
+// True if f is a mapping with the field `key` (for telling kinds of files
+// apart before reading one as another).
+bool HasField(const Field& f, const std::string& key);
+
 // Throws InputError at f's location, naming f's path.
 [[noreturn]] void Fail(const Field& f, const std::string& message);
 

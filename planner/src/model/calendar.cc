@@ -50,7 +50,7 @@ std::optional<Date> ParseDate(const std::string& text) {
   if (text.size() != 10 || text[4] != '-' || text[7] != '-') return std::nullopt;
   if (std::sscanf(text.c_str(), "%4d-%2d-%2d%c", &y, &m, &d, &tail) != 3)
     return std::nullopt;
-  if (y < 1900 || y > 2200 || m < 1 || m > 12 || d < 1 || d > DaysInMonth(y, m)) {
+  if (y < kMinYear || y > kMaxYear || m < 1 || m > 12 || d < 1 || d > DaysInMonth(y, m)) {
     return std::nullopt;
   }
   return Date{y, m, d};

@@ -270,12 +270,13 @@ void FitSectors(const MetSeries& series, const std::vector<RecordInfo>& info, in
     f.frequency =
         static_cast<double>(f.n + f.calms) / static_cast<double>(report->records);
     f.ks_distance = KolmogorovSmirnovDistance(all[s], f.weibull);
-    if (f.weibull.scale_ms > 30.0 || f.weibull.shape > 20.0) {
+    if (f.weibull.scale_ms > 30.0 || f.weibull.shape > kMaxWeibullShape ||
+        f.weibull.shape < kMinWeibullShape) {
       ThrowAt(
           where, "",
           label + ": the fitted Weibull (A = " + Fixed(f.weibull.scale_ms, 2) +
               " m/s, k = " + Fixed(f.weibull.shape, 2) +
-              ") is outside the site model's limits (A at most 30 m/s, k at most 20); "
+              ") is outside the site model's limits (A at most 30 m/s, k from 1 to 20); "
               "check the units: speeds were read as " +
               SpeedUnitName(series.read.units) + " (" + series.read.units_source + ")");
     }
