@@ -98,14 +98,17 @@ INSTANTIATE_TEST_SUITE_P(
     ::testing::Values(
         BadFlagCase{"forecast " + Demo() + " --runs 0",
                     "--runs: '0' is invalid; expected a whole number from 1 to 10000000"},
-        BadFlagCase{"forecast " + Demo() + " --runs -5",
-                    "--runs: '-5' is invalid; expected a whole number from 1 to 10000000"},
+        BadFlagCase{
+            "forecast " + Demo() + " --runs -5",
+            "--runs: '-5' is invalid; expected a whole number from 1 to 10000000"},
         BadFlagCase{"forecast " + Demo() + " --threads -1",
                     "--threads: '-1' is invalid; expected 0 (all cores)"},
-        BadFlagCase{"forecast " + Demo() + " --runs many",
-                    "--runs: 'many' is invalid; expected a whole number from 1 to 10000000"},
-        BadFlagCase{"forecast " + Demo() + " --runs 1e3",
-                    "--runs: '1e3' is invalid; expected a whole number from 1 to 10000000"},
+        BadFlagCase{
+            "forecast " + Demo() + " --runs many",
+            "--runs: 'many' is invalid; expected a whole number from 1 to 10000000"},
+        BadFlagCase{
+            "forecast " + Demo() + " --runs 1e3",
+            "--runs: '1e3' is invalid; expected a whole number from 1 to 10000000"},
         BadFlagCase{"forecast " + Demo() + " --seed -1",
                     "--seed: '-1' is invalid; expected a whole number from 0 to "
                     "18446744073709551615"},
@@ -124,8 +127,9 @@ INSTANTIATE_TEST_SUITE_P(
                     "--calm-ms: '-inf' is invalid; expected a speed above 0"},
         BadFlagCase{"log add " + Demo() + " x.csv --utc-offset NaN",
                     "--utc-offset: 'NaN' is invalid; expected hours from -14 to 14"},
-        BadFlagCase{"forecast " + Demo() + " --bogus",
-                    "The following argument was not expected: --bogus (see fillcast --help)"},
+        BadFlagCase{
+            "forecast " + Demo() + " --bogus",
+            "The following argument was not expected: --bogus (see fillcast --help)"},
         BadFlagCase{"forecast /nonexistent/plan.yaml", "/nonexistent/plan.yaml"},
         BadFlagCase{"forecast", "plan is required"},
         BadFlagCase{"forecast " + Demo() + " --relax 1.5",

@@ -27,8 +27,8 @@ class OutputSafetyCliTest : public ::testing::Test {
   void SetUp() override { dir_ = TempDir("output-safety"); }
   void TearDown() override { fs::remove_all(dir_); }
   static std::string Forecast(const std::string& extra) {
-    return "forecast " + SourcePath("demo-site/plan.yaml") + " --runs 20 --seed 9 --quiet " +
-           extra;
+    return "forecast " + SourcePath("demo-site/plan.yaml") +
+           " --runs 20 --seed 9 --quiet " + extra;
   }
   // Names in the folder, sorted, for "nothing else was left behind".
   std::vector<std::string> Names() const {
@@ -86,8 +86,9 @@ TEST_F(OutputSafetyCliTest, TemporaryFileNeverTouchesAFileOrLinkOfTheUser) {
   EXPECT_EQ(ReadFile(victim), "precious\n");
   EXPECT_EQ(ReadFile(dir_ / "out.json.fillcast-tmp"), "mine\n");
   EXPECT_TRUE(fs::is_symlink(dir_ / "out.csv.fillcast-tmp"));
-  const std::vector<std::string> expected = {"out.csv", "out.csv.fillcast-tmp", "out.json",
-                                             "out.json.fillcast-tmp", "victim.txt"};
+  const std::vector<std::string> expected = {"out.csv", "out.csv.fillcast-tmp",
+                                             "out.json", "out.json.fillcast-tmp",
+                                             "victim.txt"};
   EXPECT_EQ(Names(), expected);  // no temporary file left behind
 }
 
@@ -119,7 +120,8 @@ TEST_F(OutputSafetyCliTest, TwoOutputsToOneFileOrAnEmptyPathAreRefusedBeforeAnyW
     std::string message;
   } cases[] = {
       {"--json " + a + " --report " + a,
-       "--report: " + a + " is also the path of --json; each output needs a file of its own."},
+       "--report: " + a +
+           " is also the path of --json; each output needs a file of its own."},
       {"--csv-cells " + a + " --csv-curve " + dir_.string() + "/./a.out",
        "--csv-curve: " + dir_.string() + "/./a.out is also the path of --csv-cells"},
       {"--json ''", "--json: the value is empty; expected a file path"},
@@ -134,8 +136,9 @@ TEST_F(OutputSafetyCliTest, TwoOutputsToOneFileOrAnEmptyPathAreRefusedBeforeAnyW
         << o.output;
     EXPECT_FALSE(fs::exists(a));
   }
-  const auto o = RunFillcast("fit-site " + SourcePath("tests/data/irish-daily-wind/daily_mean_wind_knots.csv") +
-                             " -o ''");
+  const auto o = RunFillcast(
+      "fit-site " + SourcePath("tests/data/irish-daily-wind/daily_mean_wind_knots.csv") +
+      " -o ''");
   EXPECT_EQ(o.exit_code, 2) << o.output;
 }
 

@@ -47,8 +47,8 @@ TEST(FileSealTest, TextThatOnlyMentionsTheMarksIsNotSealed) {
 
 TEST(FileSealTest, TheLastSealCounts) {
   // A user's text holding a placeholder before the writer's own one.
-  const std::string text = std::string("name: ") + kSealPlaceholder + "\n# " +
-                           kSealPlaceholder + "\n";
+  const std::string text =
+      std::string("name: ") + kSealPlaceholder + "\n# " + kSealPlaceholder + "\n";
   const std::string sealed = SealContents(text);
   EXPECT_TRUE(HasValidSeal(sealed));
   EXPECT_EQ(sealed.find(kSealPlaceholder), 6u);  // the first one left as it was

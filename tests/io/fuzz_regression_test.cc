@@ -17,10 +17,9 @@ namespace {
 using reader_test::ErrorOf;
 using reader_test::TestPlanError;
 
-const std::string kPlanHead =
-    reader_test::PlanHead("Fuzz regression") +
-    "capture_matrix:\n"
-    "  production: {wind_bins_ms: [4, 8], min_records: 10}\n";
+const std::string kPlanHead = reader_test::PlanHead("Fuzz regression") +
+                              "capture_matrix:\n"
+                              "  production: {wind_bins_ms: [4, 8], min_records: 10}\n";
 
 // Found by fuzz_site_model: a ',' where a value should start made the YAML
 // library produce empty documents forever (memory grew until the process

@@ -45,13 +45,15 @@ TEST_F(InputFileTest, RegularFilesPassEverythingElseIsNamed) {
   fs::create_symlink(file, dir_ / "link.yaml");
   EXPECT_EQ(ErrorOf(file.string(), "plan"), "");
   EXPECT_EQ(ErrorOf((dir_ / "link.yaml").string(), "plan"), "");  // links are followed
-  EXPECT_EQ(ErrorOf(pipe.string(), "plan"),
-            pipe.string() +
-                ": cannot open plan file: it is a named pipe (FIFO); fillcast reads regular "
-                "files only (save the data to a file first)");
-  EXPECT_EQ(ErrorOf("/dev/zero", "records"),
-            "/dev/zero: cannot open records file: it is a character device; fillcast reads "
-            "regular files only (save the data to a file first)");
+  EXPECT_EQ(
+      ErrorOf(pipe.string(), "plan"),
+      pipe.string() +
+          ": cannot open plan file: it is a named pipe (FIFO); fillcast reads regular "
+          "files only (save the data to a file first)");
+  EXPECT_EQ(
+      ErrorOf("/dev/zero", "records"),
+      "/dev/zero: cannot open records file: it is a character device; fillcast reads "
+      "regular files only (save the data to a file first)");
   EXPECT_EQ(ErrorOf(dir_.string(), "site model"),
             dir_.string() + ": cannot open site model file: it is a folder");
   EXPECT_EQ(ErrorOf((dir_ / "none.yaml").string(), "plan"),

@@ -403,11 +403,12 @@ TEST(MetCsvReaderTest, RowsDroppedAsOutOfOrderAreNamedWhenTooFewRemain) {
   } catch (const InputError& e) {
     error = e.what();
   }
-  EXPECT_EQ(error,
-            "mast.csv: only 1 usable row of 3 read; at least 2 are needed to find the time "
-            "step; dropped: timestamp out of order: 2; first: mast.csv:3: column "
-            "'timestamp': '2024-03-01 00:10' is earlier than 2024-03-01 00:20 (line 2); "
-            "rows must be in time order; sort the file by its timestamps, oldest first");
+  EXPECT_EQ(
+      error,
+      "mast.csv: only 1 usable row of 3 read; at least 2 are needed to find the time "
+      "step; dropped: timestamp out of order: 2; first: mast.csv:3: column "
+      "'timestamp': '2024-03-01 00:10' is earlier than 2024-03-01 00:20 (line 2); "
+      "rows must be in time order; sort the file by its timestamps, oldest first");
 }
 
 }  // namespace

@@ -161,12 +161,13 @@ namespace {
 // RFC 4180 (common practice for CSV): a quoted field ends at its closing
 // quote. A quote left open must not run on or swallow the rest of the file.
 TEST(RecordsCsvReaderTest, UnterminatedQuoteIsReportedWhereItOpens) {
-  const std::string text =
-      Replace(kGood, "2027-03-01 00:10,7.9,NA,360,parked", "2027-03-01 00:10,\"7.9,NA,360,parked");
-  EXPECT_EQ(ErrorOf([&] { Read(text); }),
-            "log.csv:3:18: unterminated quote: the \" that opens this cell is not closed "
-            "on this line; close it with \" (a quote inside a cell is written \"\"; cells "
-            "holding line breaks are not read)");
+  const std::string text = Replace(kGood, "2027-03-01 00:10,7.9,NA,360,parked",
+                                   "2027-03-01 00:10,\"7.9,NA,360,parked");
+  EXPECT_EQ(
+      ErrorOf([&] { Read(text); }),
+      "log.csv:3:18: unterminated quote: the \" that opens this cell is not closed "
+      "on this line; close it with \" (a quote inside a cell is written \"\"; cells "
+      "holding line breaks are not read)");
   EXPECT_EQ(ErrorOf([&] { Read(Replace(kGood, "7.4,0.81", "\"7.4\"x,0.81")); }),
             "log.csv:2:23: text after the closing quote of a cell; a quoted cell ends at "
             "its closing \" (write a quote inside it as \"\")");
@@ -175,9 +176,10 @@ TEST(RecordsCsvReaderTest, UnterminatedQuoteIsReportedWhereItOpens) {
 TEST(RecordsCsvReaderTest, LinesEndingInCarriageReturnOnlyAreNamed) {
   std::string text = kGood;
   for (char& c : text) c = c == '\n' ? '\r' : c;
-  EXPECT_EQ(ErrorOf([&] { Read(text); }),
-            "log.csv:1:66: a carriage return (CR) inside the line: the file's lines end in "
-            "CR only (an old Mac format); save it with LF or CR LF line ends");
+  EXPECT_EQ(
+      ErrorOf([&] { Read(text); }),
+      "log.csv:1:66: a carriage return (CR) inside the line: the file's lines end in "
+      "CR only (an old Mac format); save it with LF or CR LF line ends");
 }
 
 }  // namespace

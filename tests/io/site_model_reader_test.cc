@@ -196,7 +196,8 @@ std::vector<BadSite> BadSites() {
       // A shape near 0 would put the mean wind at millions of m/s
       // (A * Gamma(1 + 1/k), Gamma(11) = 3,628,800 for k = 0.1).
       {"weibull k near zero", Replace(b, "weibull_k: 2.2", "weibull_k: 0.1"),
-       "site.yaml:4:50: sectors[1].weibull_k: 0.1 is out of range; must be at least 1 and "
+       "site.yaml:4:50: sectors[1].weibull_k: 0.1 is out of range; must be at least 1 "
+       "and "
        "at most 20"},
       {"weibull k too large", Replace(b, "weibull_k: 2.2", "weibull_k: 25"),
        "site.yaml:4:50: sectors[1].weibull_k: 25 is out of range; must be at least 1 and "
@@ -291,6 +292,27 @@ TEST(SiteModelReaderTest, RejectsBadInputWithExactMessages) {
     SCOPED_TRACE(c.name);
     EXPECT_EQ(SiteError(c.text), c.message);
   }
+}
+
+// A plan's path where a site model belongs (a plan's site_model naming a
+// plan) is said in those words, not as a list of unknown fields.
+TEST(SiteModelReaderTest, APlanReadAsASiteModelSaysSo) {
+  EXPECT_EQ(
+      ErrorOf([] { LoadSiteModel(reader_test::SourcePath("demo-site/plan.yaml")); }),
+      reader_test::SourcePath("demo-site/plan.yaml") +
+          ": is a campaign plan (it has 'campaign'), not a site model; a site model "
+          "has 'sectors' and 'turbulence' (docs/site-model.md), and a plan names it "
+          "in its site_model field");
+}
+
+TEST(SiteModelReaderTest, ASiteModelReadAsAPlanSaysSo) {
+  EXPECT_EQ(
+      ErrorOf(
+          [] { LoadPlan(reader_test::SourcePath("site-models/coastal-ridge.yaml")); }),
+      reader_test::SourcePath("site-models/coastal-ridge.yaml") +
+          ": is a site model (it has 'sectors' and no 'campaign' or 'capture_matrix'), "
+          "not a campaign plan; give the plan here and name this file in the plan's "
+          "site_model field (docs/plan.md)");
 }
 
 TEST(SiteModelReaderTest, MissingFileIsNamed) {

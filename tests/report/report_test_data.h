@@ -101,7 +101,7 @@ inline ForecastSummary TestSummary(const Plan& plan) {
   s.deadline_weeks = 10;
   s.horizon_weeks = 20;
   // Nine distinct completion times and one run incomplete at the horizon.
-  s.completion_counts = {{3.5, 1}, {5.1, 1}, {6.0, 1},  {7.25, 1}, {9.01, 1},
+  s.completion_counts = {{3.5, 1}, {5.1, 1},  {6.0, 1},  {7.25, 1}, {9.01, 1},
                          {9.5, 1}, {11.0, 1}, {12.0, 1}, {12.5, 1}};
   s.p10 = Q(0.1, 3.5, std::nullopt, 6.0);
   s.p50 = Q(0.5, 9.01, 5.1, 12.0);

@@ -20,28 +20,7 @@ namespace {
 
 constexpr double kInf = std::numeric_limits<double>::infinity();
 
-// Three wind cells with persistence and outages, so that cells fill at
-// spread-out times and the last cell varies.
-Plan ThreeCellPlan() {
-  Plan plan = testing_plans::SingleCellPlan(8.0, 2.0, 6.0, 8.0, 60, 20, 30);
-  plan.site.wind_persistence_h = 18;
-  plan.site.sector_persistence = 0.9;
-  plan.turbine_outages = testing_plans::Outages(300, 30);
-  const Bin bins[3] = {{6, 8}, {12, 14}, {16, 18}};
-  const int required[3] = {60, 40, 25};
-  plan.matrix.cells.clear();
-  StateGrid grid;
-  for (int i = 0; i < 3; ++i) {
-    Cell c;
-    c.wind_ms = bins[i];
-    c.required = required[i];
-    plan.matrix.cells.push_back(c);
-    grid.wind_bins_ms.push_back(bins[i]);
-    grid.cell_index.push_back(i);
-  }
-  plan.matrix.grids = {grid};
-  return plan;
-}
+using testing_plans::ThreeCellPlan;
 
 double Weeks(int64_t step) { return step < 0 ? kInf : step / 1008.0; }
 
@@ -119,9 +98,9 @@ TEST(ForecastAccumulatorTest, ChunkedRunsGiveTheSameAnswerForAnyThreadCount) {
                           });
     by_threads[t - 1] = acc.Summary(mc.seed);
   }
-  const ForecastSummary one = SummarizeForecast(
-      plan.matrix, sim.deadline_steps(), sim.horizon_steps(),
-      RunMonteCarlo(sim, mc, nullptr), mc.seed);
+  const ForecastSummary one =
+      SummarizeForecast(plan.matrix, sim.deadline_steps(), sim.horizon_steps(),
+                        RunMonteCarlo(sim, mc, nullptr), mc.seed);
   for (const ForecastSummary& s : by_threads) {
     EXPECT_EQ(s.runs, mc.runs);
     EXPECT_EQ(s.mean_weeks, one.mean_weeks);  // bit for bit: sums in run order

@@ -44,11 +44,11 @@ TEST(MonteCarloTest, RunToPrecisionStopsAtTheCap) {
   MonteCarloOptions mc;
   mc.runs = 40;
   long folded = 0;
-  const PrecisionResult p = RunToPrecision(
-      sim, mc, 0.8, 1e-9, 100, nullptr,
-      [&](uint64_t, const std::vector<std::vector<RunResult>>& chunk) {
-        folded += static_cast<long>(chunk[0].size());
-      });
+  const PrecisionResult p =
+      RunToPrecision(sim, mc, 0.8, 1e-9, 100, nullptr,
+                     [&](uint64_t, const std::vector<std::vector<RunResult>>& chunk) {
+                       folded += static_cast<long>(chunk[0].size());
+                     });
   EXPECT_FALSE(p.target_met);
   EXPECT_EQ(p.runs, 100);
   EXPECT_EQ(folded, 100);

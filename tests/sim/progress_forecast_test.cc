@@ -165,7 +165,8 @@ TEST(ProgressForecastTest, SameSeedSameAnswerForAnyThreadCount) {
   for (size_t i = 0; i < one.forecast.completion_counts.size(); ++i) {
     EXPECT_EQ(one.forecast.completion_counts[i].weeks,
               two.forecast.completion_counts[i].weeks);
-    EXPECT_EQ(one.forecast.completion_counts[i].runs, two.forecast.completion_counts[i].runs);
+    EXPECT_EQ(one.forecast.completion_counts[i].runs,
+              two.forecast.completion_counts[i].runs);
   }
   EXPECT_EQ(one.extensions[1].p_complete, two.extensions[1].p_complete);
 }

@@ -43,6 +43,30 @@ inline Plan SingleCellPlan(double a_ms, double k, double lo_ms, double hi_ms,
   return p;
 }
 
+// Three wind cells (6-8, 12-14 and 16-18 m/s needing 60, 40 and 25
+// records) with persistence and outages, so that cells fill at spread-out
+// times and the last cell varies from run to run.
+inline Plan ThreeCellPlan() {
+  Plan plan = SingleCellPlan(8.0, 2.0, 6.0, 8.0, 60, 20, 30);
+  plan.site.wind_persistence_h = 18;
+  plan.site.sector_persistence = 0.9;
+  plan.turbine_outages = Outages(300, 30);
+  const Bin bins[3] = {{6, 8}, {12, 14}, {16, 18}};
+  const int required[3] = {60, 40, 25};
+  plan.matrix.cells.clear();
+  StateGrid grid;
+  for (int i = 0; i < 3; ++i) {
+    Cell c;
+    c.wind_ms = bins[i];
+    c.required = required[i];
+    plan.matrix.cells.push_back(c);
+    grid.wind_bins_ms.push_back(bins[i]);
+    grid.cell_index.push_back(i);
+  }
+  plan.matrix.grids = {grid};
+  return plan;
+}
+
 }  // namespace testing_plans
 }  // namespace planner
 

@@ -87,8 +87,8 @@ TEST(ValueHistogramTest, ResultDoesNotDependOnTheOrderOfValues) {
 TEST(ValueHistogramTest, MemoryStaysWithinItsBoundHoweverManyValues) {
   // The bound of value_histogram.h: about 16 x (max_buckets + pending) bytes.
   const size_t max_buckets = 256;
-  const size_t bound = sizeof(ValueHistogram) +
-                       16 * (max_buckets + ValueHistogram::kPendingValues);
+  const size_t bound =
+      sizeof(ValueHistogram) + 16 * (max_buckets + ValueHistogram::kPendingValues);
   ValueHistogram h(max_buckets);
   std::mt19937 gen(14);
   std::uniform_int_distribution<int64_t> value(0, 1000000);

@@ -73,7 +73,7 @@ class ComparisonTally {
 
  private:
   struct PairSums {
-    long pairs = 0;           // runs where both completed
+    long pairs = 0;            // runs where both completed
     double sum = 0, sum2 = 0;  // of (later scenario - earlier), weeks
     long first_sooner = 0, second_sooner = 0;
   };

@@ -33,8 +33,8 @@ inline constexpr int kChunkRuns = 2048;
 
 // chunk[s][j] is run first_run + j of simulator s; every chunk but the last
 // holds kChunkRuns runs of each simulator.
-using ChunkFold =
-    std::function<void(uint64_t first_run, const std::vector<std::vector<RunResult>>& chunk)>;
+using ChunkFold = std::function<void(uint64_t first_run,
+                                     const std::vector<std::vector<RunResult>>& chunk)>;
 
 // Runs options.runs campaigns of each simulator (run i of every simulator on
 // stream (seed, i): common random numbers) in chunks, calling fold once per

@@ -12,8 +12,8 @@
 #include <vector>
 
 #include "cli/commands.h"
-#include "cli/run_options.h"
 #include "cli/output_file.h"
+#include "cli/run_options.h"
 #include "io/met_csv_reader.h"
 #include "io/site_model_writer.h"
 #include "planner/error.h"
@@ -275,8 +275,10 @@ CommandAction AddFitSiteCommand(CLI::App& app) {
       ->check(NumberIn(0.1, 720, "hours from 0.1 to 720"))
       ->capture_default_str();
   cmd->add_option("--name", o.name, "Site model name (default: the output file's name)");
-  cmd->add_flag("--force", args->force,
-                "Overwrite the output even if fillcast did not write it");
+  cmd->add_flag(
+      "--force", args->force,
+      "Overwrite the output if fillcast did not write it (never an input, a device or "
+      "a pipe)");
   return [cmd, args]() { return cmd->parsed() ? RunFitSite(*args) : -1; };
 }
 

@@ -164,8 +164,9 @@ CommandAction AddForecastCommand(CLI::App& app) {
   cmd->add_option("--relax", args->relaxed_share,
                   "Share of each cell's minimum for the 'what if it were lowered' column")
       ->type_name("S")
-      ->check(NumberIn(0, 1, "a share above 0 and below 1 (0.8 = each minimum lowered by "
-                             "20 %)"))
+      ->check(NumberIn(0, 1,
+                       "a share above 0 and below 1 (0.8 = each minimum lowered by "
+                       "20 %)"))
       ->capture_default_str();
   cmd->add_option("--precision", args->precision_weeks,
                   "Add runs (doubling from --runs) until the 95 % interval of the chosen "

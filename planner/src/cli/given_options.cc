@@ -49,8 +49,8 @@ void CheckGivenOptions(const CLI::App& app) {
         const std::string type = option->get_type_name();
         throw InputError(NameOf(*option) + ": the value is empty; expected " +
                          (type == "PATH" || option->get_positional() ? "a file path"
-                          : type.empty()                           ? "a value"
-                                                                   : type));
+                          : type.empty()                             ? "a value"
+                                                                     : type));
       }
       if (IsOutput(*option)) outputs.push_back({option->get_name(), value});
       if (option->get_positional() || option->check_lname("log")) inputs.push_back(value);

@@ -46,8 +46,8 @@ int main(int argc, char** argv) {
     if (e.get_exit_code() == 0) return app.exit(e);  // --help, --version
     // A checked value's message says what is valid; others point to --help.
     const bool checked = dynamic_cast<const CLI::ValidationError*>(&e) != nullptr;
-    std::cerr << "fillcast: error: " << e.what() << (checked ? "" : " (see fillcast --help)")
-              << "\n";
+    std::cerr << "fillcast: error: " << e.what()
+              << (checked ? "" : " (see fillcast --help)") << "\n";
     return kExitInputError;
   }
   try {

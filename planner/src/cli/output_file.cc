@@ -211,7 +211,8 @@ void CheckOutputTargets(const std::vector<OutputTarget>& targets,
     const std::string real = Resolve(t.option, t.path);
     for (const std::string& input : inputs) {
       if (SameFile(real, input)) {
-        throw InputError(t.option + ": " + t.path + " is an input of this run; refusing " +
+        throw InputError(t.option + ": " + t.path +
+                         " is an input of this run; refusing " +
                          "to overwrite it. Choose another output path.");
       }
     }
@@ -221,7 +222,8 @@ void CheckOutputTargets(const std::vector<OutputTarget>& targets,
 
 void WriteOutputFile(const std::string& path, const std::string& contents, bool force,
                      const std::vector<std::string>& inputs, const std::string& option) {
-  if (path.empty()) throw InputError(option + ": the path is empty; expected a file path.");
+  if (path.empty())
+    throw InputError(option + ": the path is empty; expected a file path.");
   const std::string real = Resolve(option, path);
   for (const std::string& input : inputs) {
     if (SameFile(real, input)) {
@@ -236,8 +238,8 @@ void WriteOutputFile(const std::string& path, const std::string& contents, bool 
   std::string tmp;
   const int fd = CreateTemporary(real, &tmp);
   if (fd < 0) {
-    throw InputError(option + ": cannot write " + path + ": " + CannotCreate(real, errno) +
-                     ".");
+    throw InputError(option + ": cannot write " + path + ": " +
+                     CannotCreate(real, errno) + ".");
   }
   bool ok = WriteAll(fd, sealed);
   int err = ok ? 0 : errno;
@@ -248,10 +250,12 @@ void WriteOutputFile(const std::string& path, const std::string& contents, bool 
     err = errno;
     ::unlink(tmp.c_str());
     if (err == EEXIST) {
-      throw InputError(option + ": " + path + " appeared while fillcast was writing it; " +
+      throw InputError(option + ": " + path +
+                       " appeared while fillcast was writing it; " +
                        "it was left as it is. Run again, or choose another path.");
     }
-    throw InputError(option + ": cannot write " + path + ": " + WriteErrorText(err) + ".");
+    throw InputError(option + ": cannot write " + path + ": " + WriteErrorText(err) +
+                     ".");
   }
   if (!ok) {
     ::unlink(tmp.c_str());

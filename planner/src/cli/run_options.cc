@@ -83,13 +83,15 @@ void AddRunOptions(CLI::App* cmd, RunOptionArgs* args) {
       ->capture_default_str();
   cmd->add_option("--threads", args->threads, "Worker threads (default 0 = all cores)")
       ->type_name("T")
-      ->check(WholeNumberIn(0, kMaxThreads,
-                            "0 (all cores) or a whole number up to " +
-                                std::to_string(kMaxThreads)));
+      ->check(WholeNumberIn(
+          0, kMaxThreads,
+          "0 (all cores) or a whole number up to " + std::to_string(kMaxThreads)));
   cmd->add_flag("--quiet,-q", args->quiet,
                 "No progress line; with any output file, no terminal summary either");
-  cmd->add_flag("--force", args->force,
-                "Overwrite output files even if fillcast did not write them");
+  cmd->add_flag(
+      "--force", args->force,
+      "Overwrite output files fillcast did not write (never an input, a device or a "
+      "pipe)");
 }
 
 std::string FlagNumber(double x) {
@@ -124,11 +126,11 @@ void RequirePlausible(const ForecastSummary& summary, const std::string& what) {
   if (problems.size() > 5) {
     list += "\n  ... and " + std::to_string(problems.size() - 5) + " more";
   }
-  throw InputError(what + " holds numbers that cannot be right, so nothing was written:" +
-                   list +
-                   "\nEach input is within its own range, but together they make an "
-                   "impossible result; check the site model (Weibull A and k, monthly and "
-                   "hourly factors) and the plan.");
+  throw InputError(
+      what + " holds numbers that cannot be right, so nothing was written:" + list +
+      "\nEach input is within its own range, but together they make an "
+      "impossible result; check the site model (Weibull A and k, monthly and "
+      "hourly factors) and the plan.");
 }
 
 std::string ShellWord(const std::string& text) {

@@ -2,13 +2,12 @@
 #ifndef PLANNER_CLI_RUN_OPTIONS_H_
 #define PLANNER_CLI_RUN_OPTIONS_H_
 
+#include <CLI/CLI.hpp>
 #include <cstdint>
 #include <string>
 
 #include "planner/forecast.h"
 #include "planner/monte_carlo.h"
-
-#include <CLI/CLI.hpp>
 
 namespace planner {
 

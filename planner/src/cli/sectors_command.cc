@@ -12,9 +12,9 @@
 #include <string>
 #include <vector>
 
-#include "io/file_seal.h"
 #include "cli/commands.h"
 #include "cli/output_file.h"
+#include "io/file_seal.h"
 #include "model/sector_share.h"
 #include "planner/disturbed_sector.h"
 #include "planner/plan_reader.h"
@@ -158,11 +158,10 @@ Json RangeJson(const AngleRange& r) {
 
 std::string FormatJson(const Plan& plan, const SectorsResult& r) {
   Json j;
-  j["tool"] = {
-      {"name", "fillcast"},
-      {"version", FILLCAST_VERSION},
-      {"command", "sectors"},
-      {"seal", kSealPlaceholder}};
+  j["tool"] = {{"name", "fillcast"},
+               {"version", FILLCAST_VERSION},
+               {"command", "sectors"},
+               {"seal", kSealPlaceholder}};
   j["plan"] = {{"name", plan.name}, {"site", plan.site.name}};
   Json disturbed = Json::array();
   const std::size_t neighbours = plan.layout.neighbours.size();
@@ -220,8 +219,10 @@ CommandAction AddSectorsCommand(CLI::App& app) {
       ->required();
   cmd->add_option("--json", args->json_path, "Also write the result as JSON to PATH")
       ->type_name("PATH");
-  cmd->add_flag("--force", args->force,
-                "Overwrite the --json file even if fillcast did not write it");
+  cmd->add_flag(
+      "--force", args->force,
+      "Overwrite the --json file if fillcast did not write it (never an input, a "
+      "device or a pipe)");
   return [cmd, args]() { return cmd->parsed() ? RunSectors(*args) : -1; };
 }
 

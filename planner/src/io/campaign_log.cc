@@ -204,7 +204,8 @@ std::vector<IngestReport> CampaignLog::IngestAll(const std::vector<IngestInput>&
                                                  const IngestOptions& options) {
   SqliteTransaction t(*db_);
   std::vector<IngestReport> reports;
-  for (const IngestInput& f : files) reports.push_back(IngestRows(f.file, *f.rows, options));
+  for (const IngestInput& f : files)
+    reports.push_back(IngestRows(f.file, *f.rows, options));
   t.Commit();
   return reports;
 }

@@ -4,7 +4,8 @@ namespace planner {
 namespace io {
 
 bool ReadCappedLine(std::istream& in, std::vector<char>& buffer, std::string* line,
-                    const std::string& file, int64_t line_no, const std::string& expected) {
+                    const std::string& file, int64_t line_no,
+                    const std::string& expected) {
   in.getline(buffer.data(), static_cast<std::streamsize>(buffer.size()));
   const std::size_t n = static_cast<std::size_t>(in.gcount());
   if (in.fail() && !in.eof() && n + 1 >= buffer.size()) {

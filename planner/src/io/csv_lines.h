@@ -22,7 +22,8 @@ inline constexpr std::size_t kMaxCsvLineBytes = 1 << 20;
 // Throws InputError at file:line_no when the line exceeds kMaxCsvLineBytes;
 // `expected` says what the file should hold ("a CSV file of met data").
 bool ReadCappedLine(std::istream& in, std::vector<char>& buffer, std::string* line,
-                    const std::string& file, int64_t line_no, const std::string& expected);
+                    const std::string& file, int64_t line_no,
+                    const std::string& expected);
 
 // Throws InputError at file:line_no:column if `line` holds a carriage return
 // (CR) that does not end it: the file's lines then end in CR only (an old

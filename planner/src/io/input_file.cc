@@ -16,13 +16,14 @@ void CheckInputFile(const std::string& path, const std::string& what) {
   if (path.empty()) ThrowAt(where, "", cannot + "the path is empty");
   struct stat st;
   if (::stat(path.c_str(), &st) != 0) {
-    ThrowAt(where, "", cannot + (errno == ENOENT ? "no such file" : std::strerror(errno)));
+    ThrowAt(where, "",
+            cannot + (errno == ENOENT ? "no such file" : std::strerror(errno)));
   }
   if (S_ISDIR(st.st_mode)) ThrowAt(where, "", cannot + "it is a folder");
   if (S_ISREG(st.st_mode)) return;
-  const char* kind = S_ISFIFO(st.st_mode)  ? "a named pipe (FIFO)"
-                     : S_ISCHR(st.st_mode) ? "a character device"
-                     : S_ISBLK(st.st_mode) ? "a block device"
+  const char* kind = S_ISFIFO(st.st_mode)   ? "a named pipe (FIFO)"
+                     : S_ISCHR(st.st_mode)  ? "a character device"
+                     : S_ISBLK(st.st_mode)  ? "a block device"
                      : S_ISSOCK(st.st_mode) ? "a socket"
                                             : "not a regular file";
   ThrowAt(where, "",

@@ -213,13 +213,14 @@ int Parser::FindColumn(const std::string& requested, const Role& role) const {
   if (hits.size() > 1) {
     if (!requested.empty()) {
       FailHeader(Name(role.option), Quoted(requested) + " names columns " +
-                                  std::to_string(hits[0] + 1) + " and " +
-                                  std::to_string(hits[1] + 1) +
-                                  " of the header; column names must be unique");
+                                        std::to_string(hits[0] + 1) + " and " +
+                                        std::to_string(hits[1] + 1) +
+                                        " of the header; column names must be unique");
     }
-    FailHeader(Name(role.option), "not given, and columns '" + header_[hits[0]] + "' and '" +
-                                header_[hits[1]] + "' both have usual " + role.what +
-                                " names; choose one with " + Name(role.option));
+    FailHeader(Name(role.option), "not given, and columns '" + header_[hits[0]] +
+                                      "' and '" + header_[hits[1]] +
+                                      "' both have usual " + role.what +
+                                      " names; choose one with " + Name(role.option));
   }
   if (hits.empty() && !requested.empty()) {
     FailHeader(Name(role.option),
@@ -227,10 +228,10 @@ int Parser::FindColumn(const std::string& requested, const Role& role) const {
                    " is not a column of the header; columns: " + ColumnList(header_));
   }
   if (hits.empty() && role.required) {
-    FailHeader(Name(role.option), std::string("not given, and no column has a usual ") +
-                                role.what + " name (" + Join(*role.usual) +
-                                "); columns: " + ColumnList(header_) + "; name the " +
-                                role.what + " column with " + Name(role.option));
+    FailHeader(Name(role.option),
+               std::string("not given, and no column has a usual ") + role.what +
+                   " name (" + Join(*role.usual) + "); columns: " + ColumnList(header_) +
+                   "; name the " + role.what + " column with " + Name(role.option));
   }
   return hits.empty() ? -1 : hits[0];
 }
@@ -253,9 +254,9 @@ void Parser::ReadHeader(const std::string& line, int64_t line_no) {
   for (std::size_t i = 0; i < used.size(); ++i) {
     for (std::size_t j = 0; j < i; ++j) {
       if (used[i].first >= 0 && used[i].first == used[j].first) {
-        FailHeader(Name(used[i].second->option), Quoted(header_[used[i].first]) +
-                                               " is already the " + used[j].second->what +
-                                               " column; choose another column");
+        FailHeader(Name(used[i].second->option),
+                   Quoted(header_[used[i].first]) + " is already the " +
+                       used[j].second->what + " column; choose another column");
       }
     }
   }
@@ -297,9 +298,10 @@ void Parser::ResolveUnits() {
     const UnitHint std_hint = HintOf(header_[std_col_]);
     if (Decided(std_hint) && UnitOf(std_hint) != r.units) {
       FailHeader(Name("--std"), "column " + Quoted(header_[std_col_]) + " is in " +
-                              SpeedUnitName(UnitOf(std_hint)) + " but the speed is in " +
-                              SpeedUnitName(r.units) +
-                              "; both must be in one unit (set it with " + Name("--units") + ")");
+                                    SpeedUnitName(UnitOf(std_hint)) +
+                                    " but the speed is in " + SpeedUnitName(r.units) +
+                                    "; both must be in one unit (set it with " +
+                                    Name("--units") + ")");
     }
   }
   to_ms_ = r.units == SpeedUnit::kKnots ? kMetresPerSecondPerKnot : 1.0;
@@ -488,10 +490,9 @@ MetSeries Parser::Finish() {
                std::to_string(r.dropped[i]);
   }
   const std::string first = r.examples.empty() ? "" : "; first: " + r.examples.front();
-  const std::string sort_hint =
-      r.dropped[static_cast<int>(DropReason::kOutOfOrder)] > 0
-          ? "; sort the file by its timestamps, oldest first"
-          : "";
+  const std::string sort_hint = r.dropped[static_cast<int>(DropReason::kOutOfOrder)] > 0
+                                    ? "; sort the file by its timestamps, oldest first"
+                                    : "";
   if (r.rows_kept == 0) {
     ThrowAt(where, "",
             "no usable rows: " + std::to_string(r.rows_read) + " read" +
@@ -501,9 +502,9 @@ MetSeries Parser::Finish() {
   if (r.rows_kept < 2) {
     ThrowAt(where, "",
             "only " + std::to_string(r.rows_kept) + " usable row of " +
-                std::to_string(r.rows_read) + " read; at least 2 are needed to find the " +
-                "time step" + (reasons.empty() ? "" : "; dropped: " + reasons) + first +
-                sort_hint);
+                std::to_string(r.rows_read) +
+                " read; at least 2 are needed to find the " + "time step" +
+                (reasons.empty() ? "" : "; dropped: " + reasons) + first + sort_hint);
   }
   ComputeGrid();
   return std::move(series_);
@@ -557,7 +558,8 @@ int64_t MetReadReport::DroppedTotal() const {
   return total;
 }
 
-std::vector<std::string> SplitCsvLine(const std::string& line, const SourceLocation& where) {
+std::vector<std::string> SplitCsvLine(const std::string& line,
+                                      const SourceLocation& where) {
   std::vector<std::string> cells;
   std::string cell;
   bool quoted = false, was_quoted = false;
@@ -592,8 +594,9 @@ std::vector<std::string> SplitCsvLine(const std::string& line, const SourceLocat
       quoted = was_quoted = true;
       open = i;
     } else if (was_quoted && c != ' ' && c != '\t' && c != '\r') {
-      fail(i, "text after the closing quote of a cell; a quoted cell ends at its closing "
-              "\" (write a quote inside it as \"\")");
+      fail(i,
+           "text after the closing quote of a cell; a quoted cell ends at its closing "
+           "\" (write a quote inside it as \"\")");
     } else if (!was_quoted) {
       cell += c;
     }

@@ -1,10 +1,10 @@
-#include "io/file_seal.h"
 #include "io/site_model_writer.h"
 
 #include <cmath>
 #include <cstdio>
 #include <sstream>
 
+#include "io/file_seal.h"
 #include "io/met_csv_reader.h"
 #include "planner/turbulence.h"
 

@@ -35,8 +35,8 @@ std::size_t CloseOf(const std::string& line, std::size_t open) {
 bool BlockHeader(const std::string& line, std::size_t at) {
   if (at >= line.size() || (line[at] != '|' && line[at] != '>')) return false;
   std::size_t i = at + 1;
-  while (i < line.size() && (line[i] == '+' || line[i] == '-' ||
-                             (line[i] >= '1' && line[i] <= '9'))) {
+  while (i < line.size() &&
+         (line[i] == '+' || line[i] == '-' || (line[i] >= '1' && line[i] <= '9'))) {
     ++i;
   }
   while (i < line.size() && IsBlank(line[i])) ++i;
@@ -88,9 +88,12 @@ class QuoteScan {
   [[noreturn]] void Unterminated(char quote, int line_no, std::size_t column) const {
     const std::string q(1, quote);
     ThrowAt(SourceLocation{file_, line_no, static_cast<int>(column) + 1}, "",
-            "unterminated quote: the " + q + " that opens this value is not closed on "
-            "this line; close it with " + q + " before the end of the line (a quoted "
-            "value may not run over several lines)");
+            "unterminated quote: the " + q +
+                " that opens this value is not closed on "
+                "this line; close it with " +
+                q +
+                " before the end of the line (a quoted "
+                "value may not run over several lines)");
   }
 
   std::string file_;

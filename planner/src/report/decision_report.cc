@@ -1,8 +1,8 @@
-#include "io/file_seal.h"
 #include "planner/decision_report.h"
 
 #include <nlohmann/json.hpp>
 
+#include "io/file_seal.h"
 #include "report/cautions.h"
 #include "report/report_numbers.h"
 #include "report/text_format.h"

@@ -1,4 +1,3 @@
-#include "io/file_seal.h"
 #include "planner/forecast_report.h"
 
 #include <algorithm>
@@ -8,6 +7,7 @@
 #include <nlohmann/json.hpp>
 #include <sstream>
 
+#include "io/file_seal.h"
 #include "planner/decision.h"
 #include "planner/reachability.h"
 #include "planner/weather_source.h"
@@ -347,7 +347,8 @@ std::string FormatForecastText(const Plan& plan, const ForecastSummary& s,
 std::string FormatForecastJson(const Plan& plan, const ForecastSummary& s,
                                const ReportContext& ctx) {
   Json j;
-  j["tool"] = {{"name", "fillcast"}, {"version", ctx.tool_version}, {"seal", kSealPlaceholder}};
+  j["tool"] = {
+      {"name", "fillcast"}, {"version", ctx.tool_version}, {"seal", kSealPlaceholder}};
   j["plan"] = {{"name", plan.name},
                {"site", plan.site.name},
                {"turbine", plan.turbine.name},

@@ -58,8 +58,7 @@ std::string PageHead(const HtmlReportInput& in) {
   const std::string& version = in.context.tool_version;
   return "<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\">\n"
          "<meta name=\"generator\" content=\"fillcast " +
-         Esc(version) +
-         "\">\n<meta name=\"fillcast-seal\" content=\"" +
+         Esc(version) + "\">\n<meta name=\"fillcast-seal\" content=\"" +
          kSealPlaceholder +
          "\">\n"
          "<meta http-equiv=\"Content-Security-Policy\" content=\"default-src 'none'; "

@@ -1,9 +1,9 @@
-#include "io/file_seal.h"
 #include "planner/progress_report.h"
 
 #include <algorithm>
 #include <nlohmann/json.hpp>
 
+#include "io/file_seal.h"
 #include "io/met_csv_reader.h"
 #include "planner/weather_source.h"
 #include "report/cautions.h"

@@ -123,8 +123,9 @@ PairedDifference PairedCompletionDifference(const std::string& a_name,
                                             const std::vector<RunResult>& b) {
   const size_t n = std::min(a.size(), b.size());
   ComparisonTally tally({CostModel{}, CostModel{}});
-  tally.Add({std::vector<RunResult>(a.begin(), a.begin() + static_cast<std::ptrdiff_t>(n)),
-             std::vector<RunResult>(b.begin(), b.begin() + static_cast<std::ptrdiff_t>(n))});
+  tally.Add(
+      {std::vector<RunResult>(a.begin(), a.begin() + static_cast<std::ptrdiff_t>(n)),
+       std::vector<RunResult>(b.begin(), b.begin() + static_cast<std::ptrdiff_t>(n))});
   return tally.Paired(0, a_name, 1, b_name);
 }
 

@@ -52,7 +52,8 @@ void RunChunk(const std::vector<const Simulator*>& sims, const MonteCarloOptions
       }
     }
   };
-  const int threads = static_cast<int>(std::min<long>(EffectiveThreads(options.threads), jobs));
+  const int threads =
+      static_cast<int>(std::min<long>(EffectiveThreads(options.threads), jobs));
   std::vector<std::thread> pool;
   for (int t = 1; t < threads; ++t) pool.emplace_back(worker);
   worker();
@@ -119,11 +120,12 @@ PrecisionResult RunToPrecision(const Simulator& sim, const MonteCarloOptions& op
   MonteCarloOptions batch = options;
   batch.runs = std::min(options.runs, max_runs);
   for (;;) {
-    RunMonteCarloInChunks({&sim}, batch, progress,
-                          [&](uint64_t first, const std::vector<std::vector<RunResult>>& c) {
-                            for (const RunResult& r : c[0]) completion.Add(r.completion_step);
-                            fold(first, c);
-                          });
+    RunMonteCarloInChunks(
+        {&sim}, batch, progress,
+        [&](uint64_t first, const std::vector<std::vector<RunResult>>& c) {
+          for (const RunResult& r : c[0]) completion.Add(r.completion_step);
+          fold(first, c);
+        });
     ++result.rounds;
     result.runs = completion.total();
     result.ci_width_weeks = CompletionCiWidth(completion, quantile);

@@ -52,8 +52,8 @@ void ValueHistogram::Coarsen() const {
     width_ *= 2;
     size_t out = 0;
     for (size_t i = 0; i < buckets_.size(); ++i) {
-      const int32_t key = static_cast<int32_t>(buckets_[i].first -
-                                               buckets_[i].first % width_);
+      const int32_t key =
+          static_cast<int32_t>(buckets_[i].first - buckets_[i].first % width_);
       if (out > 0 && buckets_[out - 1].first == key) {
         buckets_[out - 1].second += buckets_[i].second;
       } else {
