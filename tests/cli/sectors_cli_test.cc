@@ -35,14 +35,17 @@ class Scratch {
     fs::create_directories(dir_);
   }
   ~Scratch() { fs::remove_all(dir_); }
-  std::string Plan(const std::string& extra) {
+  // `turbine_extra` adds keys to the turbine, e.g. ", rotor_diameter_m: 100".
+  std::string Plan(const std::string& extra, const std::string& turbine_extra = "") {
     const std::string text =
         "name: Sector check\n"
         "site_model: " +
         std::string(FILLCAST_SOURCE_DIR) +
         "/site-models/coastal-ridge.yaml\n"
         "campaign: {start: 2027-03-01, deadline: 2028-03-01}\n"
-        "turbine: {name: T1, cut_in_ms: 3, rated_ms: 11, cut_out_ms: 25}\n"
+        "turbine: {name: T1, cut_in_ms: 3, rated_ms: 11, cut_out_ms: 25" +
+        turbine_extra +
+        "}\n"
         "capture_matrix: {production: {wind_bins_ms: [4, 5], min_records: 1}}\n" +
         extra;
     return Write("plan.yaml", text);
@@ -102,23 +105,14 @@ TEST(SectorsCliTest, ShowsWhyEachSectorIsOutFromTheMastAndFromTheTurbine) {
       "  turbine_under_test: {x_m: 300, y_m: 0}\n"
       "  neighbours:\n"
       "    - {name: WTG-SE, x_m: 1499.4, y_m: -1599.2, rotor_diameter_m: 100}\n"
-      "    - {name: WTG-SW, x_m: -1199.4, y_m: -1599.2, rotor_diameter_m: 100}\n");
-  // The turbine's rotor diameter is needed for its wake on the mast.
-  const std::string with_rotor = s.Write(
-      "rotor.yaml", [&] {
-        std::ifstream in(plan);
-        std::stringstream t;
-        t << in.rdbuf();
-        std::string text = t.str();
-        const std::string from = "cut_out_ms: 25}";
-        text.replace(text.find(from), from.size(), "cut_out_ms: 25, rotor_diameter_m: 100}");
-        return text;
-      }());
-  const Outcome o = RunFillcast("sectors " + with_rotor + " --json " + s.Path("out.json"));
+      "    - {name: WTG-SW, x_m: -1199.4, y_m: -1599.2, rotor_diameter_m: 100}\n",
+      ", rotor_diameter_m: 100");  // for the turbine's wake on the mast
+  const Outcome o = RunFillcast("sectors " + plan + " --json " + s.Path("out.json"));
   ASSERT_EQ(o.exit_code, 0) << o.output;
   const std::size_t mast = o.output.find("Seen from the met mast");
-  const std::size_t turbine = o.output.find("Seen from the turbine under test, T1 (300.0 m "
-                                            "from the mast on bearing 90.0 deg");
+  const std::size_t turbine = o.output.find(
+      "Seen from the turbine under test, T1 (300.0 m "
+      "from the mast on bearing 90.0 deg");
   ASSERT_NE(mast, std::string::npos) << o.output;
   ASSERT_NE(turbine, std::string::npos) << o.output;
   ASSERT_LT(mast, turbine);
@@ -147,7 +141,8 @@ TEST(SectorsCliTest, ShowsWhyEachSectorIsOutFromTheMastAndFromTheTurbine) {
   EXPECT_EQ(j["turbine_under_test"]["name"], "T1");
   EXPECT_NEAR(j["turbine_under_test"]["bearing_from_mast_deg"].get<double>(), 90.0, 1e-9);
   EXPECT_NEAR(j["turbine_under_test"]["distance_from_mast_m"].get<double>(), 300.0, 1e-9);
-  ASSERT_EQ(j["disturbed_sectors"].size(), 5u);  // 1 + 2 from the mast, 2 from the turbine
+  ASSERT_EQ(j["disturbed_sectors"].size(),
+            5u);  // 1 + 2 from the mast, 2 from the turbine
   const nlohmann::json& d = j["disturbed_sectors"];
   EXPECT_EQ(d[0]["kind"], "turbine_under_test");
   EXPECT_EQ(d[0]["seen_from"], "mast");
@@ -156,7 +151,7 @@ TEST(SectorsCliTest, ShowsWhyEachSectorIsOutFromTheMastAndFromTheTurbine) {
   EXPECT_FALSE(d[1]["excluded"].get<bool>());  // WTG-SE from the mast
   EXPECT_TRUE(d[2]["excluded"].get<bool>());   // WTG-SW from the mast
   EXPECT_EQ(d[3]["seen_from"], "turbine_under_test");
-  EXPECT_TRUE(d[3]["excluded"].get<bool>());   // WTG-SE from the turbine
+  EXPECT_TRUE(d[3]["excluded"].get<bool>());  // WTG-SE from the turbine
   EXPECT_EQ(d[4]["seen_from"], "turbine_under_test");
   EXPECT_FALSE(d[4]["excluded"].get<bool>());  // WTG-SW from the turbine
   // Valid: the circle minus the three sectors that exclude something.

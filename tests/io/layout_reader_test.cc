@@ -106,8 +106,8 @@ TEST(LayoutReaderTest, LayoutNarrowsThePlansOwnSectors) {
 
 // The base plan with the turbine's rotor diameter (line 4), which the turbine
 // under test needs.
-const std::string kBaseWithRotor = Replace(
-    kBase, "cut_out_ms: 25}", "cut_out_ms: 25, rotor_diameter_m: 100}");
+const std::string kBaseWithRotor =
+    Replace(kBase, "cut_out_ms: 25}", "cut_out_ms: 25, rotor_diameter_m: 100}");
 
 TEST(LayoutReaderTest, TurbineUnderTestIsPlacedLikeANeighbourAndNamedFromTheTurbine) {
   // 300 m east and 400 m north of the mast: 500 m on bearing atan(3/4) =
@@ -137,15 +137,16 @@ TEST(LayoutReaderTest, NeighboursAreCheckedFromTheTurbineUnderTestToo) {
   // Turbine 300 m east of the mast; WTG-S 400 m due south of the turbine
   // (L/D 4: 59.1 deg, Annex A check value, centred on 180) and 500 m from the
   // mast (3-4-5: L/D 5, centred on 180 - atan(3/4) = 143.13 deg).
-  const Plan plan = Parse(kBaseWithRotor +
-                          "layout:\n"
-                          "  mast: {x_m: 0, y_m: 0}\n"
-                          "  turbine_under_test: {x_m: 300, y_m: 0}\n"
-                          "  neighbours:\n"
-                          "    - {name: WTG-S, x_m: 300, y_m: -400, rotor_diameter_m: 100}\n");
-  const double t = DisturbedSectorWidthDeg(3.0) / 2.0;   // the turbine's wake on the mast
-  const double m = DisturbedSectorWidthDeg(5.0) / 2.0;   // WTG-S from the mast
-  const double u = DisturbedSectorWidthDeg(4.0) / 2.0;   // WTG-S from the turbine
+  const Plan plan =
+      Parse(kBaseWithRotor +
+            "layout:\n"
+            "  mast: {x_m: 0, y_m: 0}\n"
+            "  turbine_under_test: {x_m: 300, y_m: 0}\n"
+            "  neighbours:\n"
+            "    - {name: WTG-S, x_m: 300, y_m: -400, rotor_diameter_m: 100}\n");
+  const double t = DisturbedSectorWidthDeg(3.0) / 2.0;  // the turbine's wake on the mast
+  const double m = DisturbedSectorWidthDeg(5.0) / 2.0;  // WTG-S from the mast
+  const double u = DisturbedSectorWidthDeg(4.0) / 2.0;  // WTG-S from the turbine
   EXPECT_NEAR(2 * u, 59.1, 0.05);
   const double b = 180.0 - std::atan(0.75) * 180.0 / M_PI;
   // 90 + t = 124.0 lies inside WTG-S's mast sector (b - m = 118.9), so one
@@ -170,12 +171,13 @@ TEST(LayoutReaderTest, TurbineUnderTestAloneGivesTheSectorsOfListingItAsANeighbo
             "layout:\n  neighbours:\n    - {name: T1, bearing_deg: 60, distance_m: 250, "
             "rotor_diameter_m: 100}\n" +
             rest);
-  const Plan as_turbine = Parse(
-      kBaseWithRotor +
-      "layout:\n  turbine_under_test: {bearing_deg: 60, distance_m: 250}\n" + rest);
+  const Plan as_turbine =
+      Parse(kBaseWithRotor +
+            "layout:\n  turbine_under_test: {bearing_deg: 60, distance_m: 250}\n" + rest);
   ASSERT_EQ(as_turbine.valid_sectors.size(), as_neighbour.valid_sectors.size());
   for (std::size_t i = 0; i < as_turbine.valid_sectors.size(); ++i) {
-    EXPECT_EQ(as_turbine.valid_sectors[i].from_deg, as_neighbour.valid_sectors[i].from_deg);
+    EXPECT_EQ(as_turbine.valid_sectors[i].from_deg,
+              as_neighbour.valid_sectors[i].from_deg);
     EXPECT_EQ(as_turbine.valid_sectors[i].to_deg, as_neighbour.valid_sectors[i].to_deg);
   }
 }
@@ -309,7 +311,7 @@ std::vector<BadInput> BadInputs() {
        "plan.yaml:11:3: layout: leaves no valid sector: wake of WTG-A (L/D 2.0) "
        "84.6-165.4 deg cover every direction of valid_sectors_deg, so no record could "
        "count; check bearings, distances and exclusions"},
-        // The turbine 300 m north of the mast, WTG-A 200 m east of the turbine:
+      // The turbine 300 m north of the mast, WTG-A 200 m east of the turbine:
       // seen from the turbine L/D 2, 80.8 deg centred on 90 (Annex A check
       // value), which covers 80-100; from the mast WTG-A is at 360.6 m on
       // bearing atan(2/3) = 33.7 deg and the turbine's own wake is centred on 0.

@@ -247,7 +247,8 @@ TEST(DisturbedSectorTest, TurbineUnderTestWakesTheMastButNotItself) {
   EXPECT_NEAR(AngleRangeWidth(DisturbedSectors(four)[0].range), 59.1, kTolDeg);
 }
 
-TEST(DisturbedSectorTest, NeighbourWithinTwentyDiametersOfTheTurbineOnlyDisturbsTheTurbine) {
+TEST(DisturbedSectorTest,
+     NeighbourWithinTwentyDiametersOfTheTurbineOnlyDisturbsTheTurbine) {
   // 1199.4 m east and 1599.2 m south of the turbine: 1999 m from it (3-4-5
   // x 399.8), L/D 19.99, on bearing 180 - atan(3/4) = 143.13 deg. From the
   // mast it is 1499.4 m east and 1599.2 m south: 2192.2 m, L/D 21.9, beyond

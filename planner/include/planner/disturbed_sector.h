@@ -46,9 +46,9 @@ struct Obstacle {
 
 // The turbine under test, seen from the mast like the neighbours.
 struct TurbineUnderTest {
-  std::string name;           // the plan's turbine.name
-  double bearing_deg = 0.0;   // direction to it from the mast, clockwise from north
-  double distance_m = 0.0;    // from the mast, > 0
+  std::string name;               // the plan's turbine.name
+  double bearing_deg = 0.0;       // direction to it from the mast, clockwise from north
+  double distance_m = 0.0;        // from the mast, > 0
   double rotor_diameter_m = 0.0;  // the plan's turbine.rotor_diameter_m, > 0
 };
 

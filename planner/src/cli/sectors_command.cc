@@ -14,9 +14,9 @@
 #include <string>
 #include <vector>
 
-#include "io/file_seal.h"
 #include "cli/commands.h"
 #include "cli/output_file.h"
+#include "io/file_seal.h"
 #include "model/sector_share.h"
 #include "planner/disturbed_sector.h"
 #include "planner/plan_reader.h"
@@ -120,7 +120,7 @@ void PrintDisturbed(const Plan& plan, const SectorsResult& r, std::ostream& out)
   PrintSectorTable(r.from_mast, out);
   out << "Seen from the turbine under test, " << tut->name << " ("
       << Fixed(tut->distance_m, 1) << " m from the mast on bearing "
-      << Fixed(tut->bearing_deg, 1) << " deg; bearings from the turbine)\n";
+      << Fixed(tut->bearing_deg, 1) << " deg)\n";
   if (r.from_turbine.empty()) {
     out << "  none: the plan lists no neighbouring turbine or obstacle\n";
   } else {
@@ -166,7 +166,7 @@ std::string FormatText(const Plan& plan, const SectorsResult& r) {
       << " sectors of " << Fixed(SectorWidthDeg(plan.site), 1) << " deg)\n";
   if (plan.layout.turbine_under_test) {
     out << "Bearings in degrees clockwise from north, seen from the met mast and from "
-           "the turbine under test; the wind comes from them. A record counts only if "
+           "the turbine under test;\nthe wind comes from them. A record counts only if "
            "its direction is valid for both.\n\n";
   } else {
     out << "Bearings in degrees clockwise from north, seen from the measurement point; "
@@ -207,8 +207,7 @@ std::string FormatJson(const Plan& plan, const SectorsResult& r) {
   for (const std::vector<DisturbedSector>* view : {&r.from_mast, &r.from_turbine}) {
     for (const DisturbedSector& s : *view) {
       Json d = RangeJson(s.range);
-      d["seen_from"] =
-          s.seen_from == Viewpoint::kMast ? "mast" : "turbine_under_test";
+      d["seen_from"] = s.seen_from == Viewpoint::kMast ? "mast" : "turbine_under_test";
       d["kind"] = s.kind == DisturbanceKind::kNeighbour  ? "neighbour"
                   : s.kind == DisturbanceKind::kObstacle ? "obstacle"
                                                          : "turbine_under_test";
@@ -259,8 +258,8 @@ CommandAction AddSectorsCommand(CLI::App& app) {
   CLI::App* cmd = app.add_subcommand(
       "sectors",
       "Valid measurement sector from the plan's layout (IEC 61400-12-1 Annex A), seen "
-      "from the met mast and the turbine under test, and "
-      "the share of the site's wind in it");
+      "from the met mast and, when the layout places it, from the turbine under test, "
+      "and the share of the site's wind in it");
   cmd->add_option("plan", args->plan_path, "Campaign plan (YAML, see docs/plan.md)")
       ->required();
   cmd->add_option("--json", args->json_path, "Also write the result as JSON to PATH")

@@ -148,8 +148,9 @@ Obstacle ReadObstacle(const Field& f, const std::optional<Point>& mast,
   o.height_m = ReadNumber(m, "height_m", Interval("(]", 0, 1000, "m"));
   o.width_m = ReadNumber(m, "width_m", Interval("(]", 0, 10000, "m"));
   if (tut && FromTurbineM(*tut, o.bearing_deg, o.distance_m) < 0.01) {
-    Fail(f, "is at the turbine under test (layout.turbine_under_test); check the "
-            "positions");
+    Fail(f,
+         "is at the turbine under test (layout.turbine_under_test); check the "
+         "positions");
   }
   return o;
 }
@@ -202,9 +203,9 @@ void ReadLayout(const Field& f, bool sectors_given, Plan* plan) {
   std::string sectors;
   for (const DisturbedSector& s : DisturbedSectors(plan->layout)) {
     if (AngleRangeWidth(s.range) <= 0.0) continue;
-    const char* view =
-        s.seen_from == Viewpoint::kTurbineUnderTest ? " seen from the turbine under test"
-                                                    : "";
+    const char* view = s.seen_from == Viewpoint::kTurbineUnderTest
+                           ? " seen from the turbine under test"
+                           : "";
     sectors += (sectors.empty() ? "" : ", ") + s.reason + view + " " +
                Degrees(s.range.from_deg) + "-" + Degrees(s.range.to_deg) + " deg";
   }
