@@ -35,14 +35,17 @@ class Scratch {
     fs::create_directories(dir_);
   }
   ~Scratch() { fs::remove_all(dir_); }
-  std::string Plan(const std::string& extra) {
+  // `turbine_extra` adds keys to the turbine, e.g. ", rotor_diameter_m: 100".
+  std::string Plan(const std::string& extra, const std::string& turbine_extra = "") {
     const std::string text =
         "name: Sector check\n"
         "site_model: " +
         std::string(FILLCAST_SOURCE_DIR) +
         "/site-models/coastal-ridge.yaml\n"
         "campaign: {start: 2027-03-01, deadline: 2028-03-01}\n"
-        "turbine: {name: T1, cut_in_ms: 3, rated_ms: 11, cut_out_ms: 25}\n"
+        "turbine: {name: T1, cut_in_ms: 3, rated_ms: 11, cut_out_ms: 25" +
+        turbine_extra +
+        "}\n"
         "capture_matrix: {production: {wind_bins_ms: [4, 5], min_records: 1}}\n" +
         extra;
     return Write("plan.yaml", text);
@@ -72,16 +75,90 @@ TEST(SectorsCliTest, DemoListsEachDisturbedSectorAndTheValidSectors) {
   const Outcome o = RunFillcast("sectors " + Demo());
   ASSERT_EQ(o.exit_code, 0) << o.output;
   // The turbine under test at 2.5 D and the neighbour, by the Annex A formula.
-  EXPECT_NE(o.output.find("wake of QT-150 (turbine under test) (L/D 2.5)"),
+  EXPECT_NE(o.output.find("wake of the turbine under test QT-150 (invented prototype) "
+                          "(L/D 2.5)"),
             std::string::npos)
       << o.output;
   EXPECT_NE(o.output.find(Fixed1(AnnexAWidthDeg(2.5))), std::string::npos);
   EXPECT_NE(o.output.find("wake of WTG-N1"), std::string::npos);
   EXPECT_NE(o.output.find("obstacle farm buildings"), std::string::npos);
+  // Both views: the demo checks its sectors from the QT-150 too.
+  EXPECT_NE(o.output.find("Seen from the met mast"), std::string::npos);
+  EXPECT_NE(o.output.find("Seen from the turbine under test, QT-150"), std::string::npos);
   EXPECT_NE(o.output.find("Manual exclusions"), std::string::npos);
   EXPECT_NE(o.output.find("Valid sectors"), std::string::npos);
   EXPECT_NE(o.output.find("Cautions"), std::string::npos);
   EXPECT_NE(o.output.find("certification body"), std::string::npos);
+}
+
+TEST(SectorsCliTest, ShowsWhyEachSectorIsOutFromTheMastAndFromTheTurbine) {
+  Scratch s;
+  // Mast at the origin, turbine 300 m east (D 100 m: L/D 3 on the mast,
+  // centred on 90). WTG-SE is 1199.4 m east and 1599.2 m south of the turbine
+  // (3-4-5: 1999 m, L/D 19.99, bearing 180 - atan(3/4) = 143.13 deg, about the
+  // 30.0 deg Annex A gives at L/D 20) and 2192.2 m from the mast (L/D 21.9:
+  // no sector). WTG-SW mirrors it about the mast: 1999 m from the mast on
+  // 216.87 deg, 2192.2 m from the turbine.
+  const std::string plan = s.Plan(
+      "layout:\n"
+      "  mast: {x_m: 0, y_m: 0}\n"
+      "  turbine_under_test: {x_m: 300, y_m: 0}\n"
+      "  neighbours:\n"
+      "    - {name: WTG-SE, x_m: 1499.4, y_m: -1599.2, rotor_diameter_m: 100}\n"
+      "    - {name: WTG-SW, x_m: -1199.4, y_m: -1599.2, rotor_diameter_m: 100}\n",
+      ", rotor_diameter_m: 100");  // for the turbine's wake on the mast
+  const Outcome o = RunFillcast("sectors " + plan + " --json " + s.Path("out.json"));
+  ASSERT_EQ(o.exit_code, 0) << o.output;
+  const std::size_t mast = o.output.find("Seen from the met mast");
+  const std::size_t turbine = o.output.find(
+      "Seen from the turbine under test, T1 (300.0 m "
+      "from the mast on bearing 90.0 deg");
+  ASSERT_NE(mast, std::string::npos) << o.output;
+  ASSERT_NE(turbine, std::string::npos) << o.output;
+  ASSERT_LT(mast, turbine);
+  const std::string mast_view = o.output.substr(mast, turbine - mast);
+  const std::string turbine_view = o.output.substr(turbine);
+  EXPECT_NE(mast_view.find("wake of the turbine under test T1 (L/D 3.0)"),
+            std::string::npos);
+  EXPECT_NE(mast_view.find("wake of WTG-SE (L/D 21.9)"), std::string::npos);
+  EXPECT_NE(mast_view.find("wake of WTG-SW (L/D 20.0)"), std::string::npos);
+  EXPECT_NE(turbine_view.find("wake of WTG-SE (L/D 20.0)"), std::string::npos);
+  EXPECT_NE(turbine_view.find("wake of WTG-SW (L/D 21.9)"), std::string::npos);
+  // Centres and widths, as printed (one decimal).
+  const double c_se = 180.0 - std::atan(0.75) * 180.0 / M_PI;
+  const double c_sw = 180.0 + std::atan(0.75) * 180.0 / M_PI;
+  const double w = AnnexAWidthDeg(19.99);
+  EXPECT_NEAR(w, 30.0, 0.05);  // Annex A check value at L/D 20
+  EXPECT_NE(turbine_view.find(Fixed1(c_se - w / 2) + "  " + Fixed1(c_se + w / 2)),
+            std::string::npos)
+      << turbine_view;
+  EXPECT_NE(mast_view.find(Fixed1(c_sw - w / 2) + "  " + Fixed1(c_sw + w / 2)),
+            std::string::npos)
+      << mast_view;
+
+  std::ifstream in(s.Path("out.json"));
+  const nlohmann::json j = nlohmann::json::parse(in);
+  EXPECT_EQ(j["turbine_under_test"]["name"], "T1");
+  EXPECT_NEAR(j["turbine_under_test"]["bearing_from_mast_deg"].get<double>(), 90.0, 1e-9);
+  EXPECT_NEAR(j["turbine_under_test"]["distance_from_mast_m"].get<double>(), 300.0, 1e-9);
+  ASSERT_EQ(j["disturbed_sectors"].size(),
+            5u);  // 1 + 2 from the mast, 2 from the turbine
+  const nlohmann::json& d = j["disturbed_sectors"];
+  EXPECT_EQ(d[0]["kind"], "turbine_under_test");
+  EXPECT_EQ(d[0]["seen_from"], "mast");
+  EXPECT_NEAR(d[0]["width_deg"].get<double>(), AnnexAWidthDeg(3.0), 1e-9);
+  EXPECT_EQ(d[1]["seen_from"], "mast");
+  EXPECT_FALSE(d[1]["excluded"].get<bool>());  // WTG-SE from the mast
+  EXPECT_TRUE(d[2]["excluded"].get<bool>());   // WTG-SW from the mast
+  EXPECT_EQ(d[3]["seen_from"], "turbine_under_test");
+  EXPECT_TRUE(d[3]["excluded"].get<bool>());  // WTG-SE from the turbine
+  EXPECT_EQ(d[4]["seen_from"], "turbine_under_test");
+  EXPECT_FALSE(d[4]["excluded"].get<bool>());  // WTG-SW from the turbine
+  // Valid: the circle minus the three sectors that exclude something.
+  EXPECT_NEAR(j["valid_total"]["width_deg"].get<double>(),
+              360.0 - AnnexAWidthDeg(3.0) - d[2]["width_deg"].get<double>() -
+                  d[3]["width_deg"].get<double>(),
+              1e-9);
 }
 
 TEST(SectorsCliTest, SharesFollowTheSiteSectorFrequencies) {

@@ -1,6 +1,8 @@
 // Disturbed sectors of IEC 61400-12-1 Annex A and the valid sector that
-// remains. The check values are those of DESIGN.md, computed from the
-// published formula alpha = 1.3 arctan(2.5 D/L + 0.15) + 10 degrees.
+// remains, seen from the met mast and from the turbine under test. The check
+// values are those of DESIGN.md, computed from the published formula
+// alpha = 1.3 arctan(2.5 D/L + 0.15) + 10 degrees; positions use exact
+// 3-4-5 triangles (Pythagoras), so distances and bearings are known exactly.
 #include "planner/disturbed_sector.h"
 
 #include <gtest/gtest.h>
@@ -177,6 +179,164 @@ TEST(DisturbedSectorTest, BeyondTwentyDiametersNothingIsExcludedButItIsReported)
   // Exactly 20 is inside the range: excluded with the 30.0 deg of the table.
   layout.neighbours[0].distance_m = 2000;
   EXPECT_NEAR(AngleRangeWidth(DisturbedSectors(layout)[0].range), 30.0, kTolDeg);
+}
+
+// --- Seen from the turbine under test as well as from the mast ---
+
+constexpr double kRad = M_PI / 180.0;
+
+// Bearing and distance from the mast of a point `east_m`, `north_m` from it.
+PolarPosition FromMast(double east_m, double north_m) {
+  double bearing = std::atan2(east_m, north_m) / kRad;
+  if (bearing < 0.0) bearing += 360.0;
+  return PolarPosition{bearing, std::hypot(east_m, north_m)};
+}
+
+// The turbine under test 300 m due east of the mast (3 D with D = 100 m).
+SiteLayout LayoutWithTurbineEast() {
+  SiteLayout layout;
+  layout.turbine_under_test = TurbineUnderTest{"TUT", 90.0, 300.0, 100.0};
+  return layout;
+}
+
+NeighbourTurbine NeighbourAt(const char* name, double east_m, double north_m) {
+  const PolarPosition p = FromMast(east_m, north_m);
+  return Neighbour(name, p.bearing_deg, p.distance_m, 100.0);
+}
+
+std::vector<DisturbedSector> SeenFromOnly(const std::vector<DisturbedSector>& all,
+                                          Viewpoint view) {
+  std::vector<DisturbedSector> out;
+  for (const DisturbedSector& s : all) {
+    if (s.seen_from == view && s.kind != DisturbanceKind::kExclusion) out.push_back(s);
+  }
+  return out;
+}
+
+TEST(DisturbedSectorTest, SeenFromTurnsPositionsAroundExactly) {
+  // From 300 m east of the origin to 400 m north of it: 300 m west and 400 m
+  // north, 500 m (3-4-5), bearing 360 - atan(3/4) = 323.13 deg; back again the
+  // bearing differs by 180 deg and the distance is the same.
+  const PolarPosition east{90.0, 300.0};
+  const PolarPosition north{0.0, 400.0};
+  const PolarPosition there = SeenFrom(east, north);
+  EXPECT_NEAR(there.distance_m, 500.0, 1e-9);
+  EXPECT_NEAR(there.bearing_deg, 360.0 - std::atan(0.75) / kRad, 1e-9);
+  const PolarPosition back = SeenFrom(north, east);
+  EXPECT_NEAR(back.distance_m, 500.0, 1e-9);
+  EXPECT_NEAR(back.bearing_deg, there.bearing_deg - 180.0, 1e-9);
+  // From the origin itself nothing changes.
+  const PolarPosition same = SeenFrom(PolarPosition{}, east);
+  EXPECT_NEAR(same.bearing_deg, 90.0, 1e-9);
+  EXPECT_NEAR(same.distance_m, 300.0, 1e-9);
+}
+
+TEST(DisturbedSectorTest, TurbineUnderTestWakesTheMastButNotItself) {
+  // 300 m at D 100: L/D 3, the Annex A width, centred on bearing 90 deg.
+  const SiteLayout layout = LayoutWithTurbineEast();
+  const std::vector<DisturbedSector> s = DisturbedSectors(layout);
+  ASSERT_EQ(s.size(), 1u);  // nothing seen from the turbine: it does not disturb itself
+  EXPECT_EQ(s[0].kind, DisturbanceKind::kTurbineUnderTest);
+  EXPECT_EQ(s[0].seen_from, Viewpoint::kMast);
+  EXPECT_EQ(s[0].reason, "wake of the turbine under test TUT (L/D 3.0)");
+  EXPECT_NEAR(AngleRangeWidth(s[0].range), DisturbedSectorWidthDeg(3.0), 1e-9);
+  EXPECT_NEAR((s[0].range.from_deg + s[0].range.to_deg) / 2.0, 90.0, 1e-9);
+  // At 400 m (L/D 4) the width is the published check value.
+  SiteLayout four = layout;
+  four.turbine_under_test->distance_m = 400.0;
+  EXPECT_NEAR(AngleRangeWidth(DisturbedSectors(four)[0].range), 59.1, kTolDeg);
+}
+
+TEST(DisturbedSectorTest,
+     NeighbourWithinTwentyDiametersOfTheTurbineOnlyDisturbsTheTurbine) {
+  // 1199.4 m east and 1599.2 m south of the turbine: 1999 m from it (3-4-5
+  // x 399.8), L/D 19.99, on bearing 180 - atan(3/4) = 143.13 deg. From the
+  // mast it is 1499.4 m east and 1599.2 m south: 2192.2 m, L/D 21.9, beyond
+  // the formula's range, so the mast sees no sector (docs/methods.md).
+  SiteLayout layout = LayoutWithTurbineEast();
+  layout.neighbours.push_back(NeighbourAt("WTG-SE", 300.0 + 1199.4, -1599.2));
+  const std::vector<DisturbedSector> all = DisturbedSectors(layout);
+  const std::vector<DisturbedSector> mast = SeenFromOnly(all, Viewpoint::kMast);
+  const std::vector<DisturbedSector> tut =
+      SeenFromOnly(all, Viewpoint::kTurbineUnderTest);
+  ASSERT_EQ(mast.size(), 2u);  // the turbine under test's wake, the neighbour
+  EXPECT_DOUBLE_EQ(AngleRangeWidth(mast[1].range), 0.0);
+  EXPECT_EQ(mast[1].reason, "wake of WTG-SE (L/D 21.9)");
+  ASSERT_EQ(tut.size(), 1u);
+  EXPECT_EQ(tut[0].reason, "wake of WTG-SE (L/D 20.0)");
+  EXPECT_EQ(tut[0].kind, DisturbanceKind::kNeighbour);
+  EXPECT_NEAR(AngleRangeWidth(tut[0].range), 30.0, kTolDeg);  // Annex A, L/D 20
+  const double centre = 180.0 - std::atan(0.75) / kRad;
+  EXPECT_NEAR((tut[0].range.from_deg + tut[0].range.to_deg) / 2.0, centre, 1e-9);
+  // The valid sector is what both views leave.
+  const double a = DisturbedSectorWidthDeg(3.0) / 2.0;
+  const double b = AngleRangeWidth(tut[0].range) / 2.0;
+  const std::vector<AngleRange> valid = ValidSectorsFromLayout(layout, {{0, 360}});
+  ASSERT_EQ(valid.size(), 2u);
+  ExpectRange(valid[0], 90.0 + a, centre - b);
+  ExpectRange(valid[1], centre + b, 90.0 - a);
+}
+
+TEST(DisturbedSectorTest, NeighbourWithinTwentyDiametersOfTheMastOnlyDisturbsTheMast) {
+  // The mirror image: 1199.4 m west and 1599.2 m south of the mast (1999 m,
+  // L/D 19.99, bearing 180 + atan(3/4) = 216.87 deg); from the turbine 1499.4 m
+  // west, 2192.2 m, L/D 21.9: no sector.
+  SiteLayout layout = LayoutWithTurbineEast();
+  layout.neighbours.push_back(NeighbourAt("WTG-SW", -1199.4, -1599.2));
+  const std::vector<DisturbedSector> all = DisturbedSectors(layout);
+  const std::vector<DisturbedSector> mast = SeenFromOnly(all, Viewpoint::kMast);
+  const std::vector<DisturbedSector> tut =
+      SeenFromOnly(all, Viewpoint::kTurbineUnderTest);
+  ASSERT_EQ(mast.size(), 2u);
+  EXPECT_NEAR(AngleRangeWidth(mast[1].range), 30.0, kTolDeg);  // Annex A, L/D 20
+  EXPECT_NEAR((mast[1].range.from_deg + mast[1].range.to_deg) / 2.0,
+              180.0 + std::atan(0.75) / kRad, 1e-9);
+  ASSERT_EQ(tut.size(), 1u);
+  EXPECT_DOUBLE_EQ(AngleRangeWidth(tut[0].range), 0.0);
+  EXPECT_EQ(tut[0].reason, "wake of WTG-SW (L/D 21.9)");
+  EXPECT_EQ(tut[0].note, "L/D above 20, beyond the formula's range: not excluded");
+}
+
+TEST(DisturbedSectorTest, ObstacleIsCheckedFromTheTurbineAtItsOwnDistance) {
+  // A 10 m x 30 m shed (D_e 15 m, IEC 61400-12-1 Annex A, formula from
+  // memory) 60 m north of a turbine that stands 200 m north of the mast: from
+  // the turbine L/D_e 4 (59.1 deg, Annex A check value) centred on 0 deg; from
+  // the mast 260 m, L/D_e 17.3.
+  SiteLayout layout;
+  layout.turbine_under_test = TurbineUnderTest{"TUT", 0.0, 200.0, 100.0};
+  Obstacle o;
+  o.name = "shed";
+  o.bearing_deg = 0.0;
+  o.distance_m = 260.0;
+  o.height_m = 10.0;
+  o.width_m = 30.0;
+  layout.obstacles.push_back(o);
+  const std::vector<DisturbedSector> tut =
+      SeenFromOnly(DisturbedSectors(layout), Viewpoint::kTurbineUnderTest);
+  ASSERT_EQ(tut.size(), 1u);
+  EXPECT_EQ(tut[0].reason, "obstacle shed (L/D_e 4.0, D_e 15.0 m)");
+  EXPECT_EQ(tut[0].kind, DisturbanceKind::kObstacle);
+  EXPECT_NEAR(AngleRangeWidth(tut[0].range), 59.1, kTolDeg);
+  EXPECT_TRUE(AngleRangeContains(tut[0].range, 0.0));
+  EXPECT_NEAR(tut[0].range.to_deg, DisturbedSectorWidthDeg(4.0) / 2.0, 1e-9);
+  const std::vector<DisturbedSector> mast =
+      SeenFromOnly(DisturbedSectors(layout), Viewpoint::kMast);
+  ASSERT_EQ(mast.size(), 2u);
+  EXPECT_NEAR(AngleRangeWidth(mast[1].range), DisturbedSectorWidthDeg(260.0 / 15.0),
+              1e-9);
+}
+
+TEST(DisturbedSectorTest, WithoutTheTurbineUnderTestOnlyTheMastViewIsMade) {
+  // The layout as before the turbine's position was given: one entry per item,
+  // all seen from the mast, exactly as the single-view sectors.
+  SiteLayout layout;
+  layout.neighbours.push_back(Neighbour("WTG-1", 90, 400, 100));
+  layout.exclusions.push_back({170, 190});
+  const std::vector<DisturbedSector> s = DisturbedSectors(layout);
+  ASSERT_EQ(s.size(), 2u);
+  EXPECT_EQ(s[0].seen_from, Viewpoint::kMast);
+  EXPECT_EQ(s[0].kind, DisturbanceKind::kNeighbour);
+  EXPECT_EQ(s[1].kind, DisturbanceKind::kExclusion);
 }
 
 }  // namespace

@@ -1,13 +1,15 @@
 // fillcast sectors PLAN.yaml: the valid measurement sector from the plan's
-// layout (IEC 61400-12-1 Annex A): each disturbed sector with its reason, the
-// manual exclusions, what valid_sectors_deg leaves out, the valid sectors and
-// the share of the site's wind (time and energy) that comes from them.
+// layout (IEC 61400-12-1 Annex A): each disturbed sector with its reason, seen
+// from the mast and (when the layout places it) from the turbine under test,
+// the manual exclusions, what valid_sectors_deg leaves out, the valid sectors
+// and the share of the site's wind (time and energy) that comes from them.
 #include <CLI/CLI.hpp>
 #include <algorithm>
 #include <cstdio>
 #include <iostream>
 #include <memory>
 #include <nlohmann/json.hpp>
+#include <optional>
 #include <sstream>
 #include <string>
 #include <vector>
@@ -33,7 +35,8 @@ struct SectorsArgs {
 
 // Everything the command shows, computed once for the text and the JSON.
 struct SectorsResult {
-  std::vector<DisturbedSector> formula;  // neighbours and obstacles
+  std::vector<DisturbedSector> from_mast;     // turbine under test, neighbours, obstacles
+  std::vector<DisturbedSector> from_turbine;  // neighbours, obstacles (may be empty)
   std::vector<AngleRange> exclusions;
   std::vector<AngleRange> outside_written;  // left out by valid_sectors_deg alone
   std::vector<AngleRange> valid;
@@ -44,9 +47,10 @@ struct SectorsResult {
 SectorsResult Compute(const Plan& plan) {
   SectorsResult r;
   const std::vector<DisturbedSector> all = DisturbedSectors(plan.layout);
-  const std::size_t formula_count =
-      plan.layout.neighbours.size() + plan.layout.obstacles.size();
-  r.formula.assign(all.begin(), all.begin() + static_cast<long>(formula_count));
+  for (const DisturbedSector& s : all) {
+    if (s.kind == DisturbanceKind::kExclusion) continue;
+    (s.seen_from == Viewpoint::kMast ? r.from_mast : r.from_turbine).push_back(s);
+  }
   r.exclusions = plan.layout.exclusions;
   r.valid = plan.valid_sectors;
   // valid = written - disturbed, so the circle minus valid minus disturbed is
@@ -83,18 +87,12 @@ std::string RangeCells(const AngleRange& r) {
 const char kRangeHeader[] = "   from     to  width";
 const char kRangeUnits[] = "    deg    deg    deg";
 
-void PrintDisturbed(const SectorsResult& r, std::ostream& out) {
-  out << "Disturbed sectors (IEC 61400-12-1 Annex A: alpha = 1.3 arctan(2.5 D/L + 0.15) "
-         "+ 10 deg)\n";
-  if (r.formula.empty()) {
-    out << "  none: the plan lists no neighbouring turbine or obstacle\n\n";
-    return;
-  }
+void PrintSectorTable(const std::vector<DisturbedSector>& sectors, std::ostream& out) {
   std::size_t width = std::string("Reason").size();
-  for (const DisturbedSector& s : r.formula) width = std::max(width, s.reason.size());
+  for (const DisturbedSector& s : sectors) width = std::max(width, s.reason.size());
   out << "  " << Pad("Reason", width, false) << kRangeHeader << "\n";
   out << "  " << Pad("", width, false) << kRangeUnits << "\n";
-  for (const DisturbedSector& s : r.formula) {
+  for (const DisturbedSector& s : sectors) {
     out << "  " << Pad(s.reason, width, false);
     if (AngleRangeWidth(s.range) > 0.0) {
       out << RangeCells(s.range) << "\n";
@@ -103,7 +101,33 @@ void PrintDisturbed(const SectorsResult& r, std::ostream& out) {
     }
     if (!s.note.empty()) out << "    note: " << s.note << "\n";
   }
-  out << "\n";
+}
+
+void PrintDisturbed(const Plan& plan, const SectorsResult& r, std::ostream& out) {
+  out << "Disturbed sectors (IEC 61400-12-1 Annex A: alpha = 1.3 arctan(2.5 D/L + 0.15) "
+         "+ 10 deg)\n";
+  const std::optional<TurbineUnderTest>& tut = plan.layout.turbine_under_test;
+  if (!tut) {
+    if (r.from_mast.empty()) {
+      out << "  none: the plan lists no neighbouring turbine or obstacle\n\n";
+      return;
+    }
+    PrintSectorTable(r.from_mast, out);
+    out << "\n";
+    return;
+  }
+  out << "Seen from the met mast (bearings from the mast)\n";
+  PrintSectorTable(r.from_mast, out);
+  out << "Seen from the turbine under test, " << tut->name << " ("
+      << Fixed(tut->distance_m, 1) << " m from the mast on bearing "
+      << Fixed(tut->bearing_deg, 1) << " deg)\n";
+  if (r.from_turbine.empty()) {
+    out << "  none: the plan lists no neighbouring turbine or obstacle\n";
+  } else {
+    PrintSectorTable(r.from_turbine, out);
+  }
+  out << "  (the turbine under test does not disturb itself; the mast is not an "
+         "obstacle for it)\n\n";
 }
 
 void PrintRanges(const std::string& title, const std::vector<AngleRange>& ranges,
@@ -140,9 +164,15 @@ std::string FormatText(const Plan& plan, const SectorsResult& r) {
   out << "Valid measurement sector: " << plan.name << "\n";
   out << "Site model: " << plan.site.name << " (" << plan.site.sectors.size()
       << " sectors of " << Fixed(SectorWidthDeg(plan.site), 1) << " deg)\n";
-  out << "Bearings in degrees clockwise from north, seen from the measurement point; "
-         "the wind comes from them.\n\n";
-  PrintDisturbed(r, out);
+  if (plan.layout.turbine_under_test) {
+    out << "Bearings in degrees clockwise from north, seen from the met mast and from "
+           "the turbine under test;\nthe wind comes from them. A record counts only if "
+           "its direction is valid for both.\n\n";
+  } else {
+    out << "Bearings in degrees clockwise from north, seen from the measurement point; "
+           "the wind comes from them.\n\n";
+  }
+  PrintDisturbed(plan, r, out);
   PrintRanges("Manual exclusions", r.exclusions, out);
   PrintRanges("Outside valid_sectors_deg", r.outside_written, out);
   PrintValid(r, out);
@@ -163,15 +193,28 @@ std::string FormatJson(const Plan& plan, const SectorsResult& r) {
                {"command", "sectors"},
                {"seal", kSealPlaceholder}};
   j["plan"] = {{"name", plan.name}, {"site", plan.site.name}};
+  const std::optional<TurbineUnderTest>& tut = plan.layout.turbine_under_test;
+  if (tut) {
+    j["turbine_under_test"] = {{"name", tut->name},
+                               {"bearing_from_mast_deg", tut->bearing_deg},
+                               {"distance_from_mast_m", tut->distance_m},
+                               {"rotor_diameter_m", tut->rotor_diameter_m}};
+  } else {
+    j["turbine_under_test"] = nullptr;
+  }
   Json disturbed = Json::array();
-  const std::size_t neighbours = plan.layout.neighbours.size();
-  for (std::size_t i = 0; i < r.formula.size(); ++i) {
-    Json d = RangeJson(r.formula[i].range);
-    d["kind"] = i < neighbours ? "neighbour" : "obstacle";
-    d["reason"] = r.formula[i].reason;
-    d["excluded"] = AngleRangeWidth(r.formula[i].range) > 0.0;
-    d["note"] = r.formula[i].note;
-    disturbed.push_back(d);
+  for (const std::vector<DisturbedSector>* view : {&r.from_mast, &r.from_turbine}) {
+    for (const DisturbedSector& s : *view) {
+      Json d = RangeJson(s.range);
+      d["seen_from"] = s.seen_from == Viewpoint::kMast ? "mast" : "turbine_under_test";
+      d["kind"] = s.kind == DisturbanceKind::kNeighbour  ? "neighbour"
+                  : s.kind == DisturbanceKind::kObstacle ? "obstacle"
+                                                         : "turbine_under_test";
+      d["reason"] = s.reason;
+      d["excluded"] = AngleRangeWidth(s.range) > 0.0;
+      d["note"] = s.note;
+      disturbed.push_back(d);
+    }
   }
   j["disturbed_sectors"] = disturbed;
   j["exclusions"] = Json::array();
@@ -213,8 +256,9 @@ CommandAction AddSectorsCommand(CLI::App& app) {
   auto args = std::make_shared<SectorsArgs>();
   CLI::App* cmd = app.add_subcommand(
       "sectors",
-      "Valid measurement sector from the plan's layout (IEC 61400-12-1 Annex A) and "
-      "the share of the site's wind in it");
+      "Valid measurement sector from the plan's layout (IEC 61400-12-1 Annex A), seen "
+      "from the met mast and, when the layout places it, from the turbine under test, "
+      "and the share of the site's wind in it");
   cmd->add_option("plan", args->plan_path, "Campaign plan (YAML, see docs/plan.md)")
       ->required();
   cmd->add_option("--json", args->json_path, "Also write the result as JSON to PATH")

@@ -13,9 +13,11 @@ namespace planner {
 namespace io {
 namespace {
 
-const std::vector<std::string> kLayoutFields = {"mast", "neighbours", "obstacles",
-                                                "exclusions_deg"};
+const std::vector<std::string> kLayoutFields = {
+    "mast", "turbine_under_test", "neighbours", "obstacles", "exclusions_deg"};
 const std::vector<std::string> kPointFields = {"x_m", "y_m"};
+const std::vector<std::string> kTurbineUnderTestFields = {"bearing_deg", "distance_m",
+                                                          "x_m", "y_m"};
 const std::vector<std::string> kNeighbourFields = {
     "name", "bearing_deg", "distance_m", "x_m", "y_m", "rotor_diameter_m"};
 const std::vector<std::string> kObstacleFields = {
@@ -78,7 +80,38 @@ Position ReadPosition(const FieldMap& m, const std::optional<Point>& mast) {
   return Position{bearing, distance};
 }
 
+// One decimal, as in the sectors command.
+std::string Degrees(double x) {
+  char buf[32];
+  std::snprintf(buf, sizeof buf, "%.1f", x);
+  return buf;
+}
+
+// Distance from the turbine under test to an item at bearing/distance from
+// the mast.
+double FromTurbineM(const TurbineUnderTest& tut, double bearing_deg, double distance_m) {
+  return SeenFrom(PolarPosition{tut.bearing_deg, tut.distance_m},
+                  PolarPosition{bearing_deg, distance_m})
+      .distance_m;
+}
+
+// The turbine under test's position (like a neighbour's); its name and rotor
+// diameter come from the plan's turbine section.
+TurbineUnderTest ReadTurbineUnderTest(const Field& f, const std::optional<Point>& mast,
+                                      const TurbineSpec& turbine) {
+  const FieldMap m(f, kTurbineUnderTestFields);
+  const Position p = ReadPosition(m, mast);
+  if (turbine.rotor_diameter_m <= 0.0) {
+    Fail(f,
+         "needs the rotor diameter of the turbine under test for its wake on the "
+         "mast; give turbine.rotor_diameter_m");
+  }
+  return TurbineUnderTest{turbine.name, p.bearing_deg, p.distance_m,
+                          turbine.rotor_diameter_m};
+}
+
 NeighbourTurbine ReadNeighbour(const Field& f, const std::optional<Point>& mast,
+                               const std::optional<TurbineUnderTest>& tut,
                                NameSet* names) {
   const FieldMap m(f, kNeighbourFields);
   NeighbourTurbine n;
@@ -88,10 +121,23 @@ NeighbourTurbine ReadNeighbour(const Field& f, const std::optional<Point>& mast,
   n.bearing_deg = p.bearing_deg;
   n.distance_m = p.distance_m;
   n.rotor_diameter_m = ReadNumber(m, "rotor_diameter_m", Interval("(]", 0, 500, "m"));
+  if (!tut) return n;
+  // Rotors closer than their radii together would collide: the same turbine.
+  const double apart_m = FromTurbineM(*tut, n.bearing_deg, n.distance_m);
+  const double radii_m = (n.rotor_diameter_m + tut->rotor_diameter_m) / 2.0;
+  if (apart_m < radii_m) {
+    Fail(f, "is " + Degrees(apart_m) +
+                " m from layout.turbine_under_test, closer than their rotor radii "
+                "together (" +
+                Degrees(radii_m) +
+                " m), so it is the turbine under test itself; its wake on the mast "
+                "follows from turbine_under_test, remove this neighbour");
+  }
   return n;
 }
 
-Obstacle ReadObstacle(const Field& f, const std::optional<Point>& mast, NameSet* names) {
+Obstacle ReadObstacle(const Field& f, const std::optional<Point>& mast,
+                      const std::optional<TurbineUnderTest>& tut, NameSet* names) {
   const FieldMap m(f, kObstacleFields);
   Obstacle o;
   o.name = ReadName(m, "name");
@@ -101,14 +147,12 @@ Obstacle ReadObstacle(const Field& f, const std::optional<Point>& mast, NameSet*
   o.distance_m = p.distance_m;
   o.height_m = ReadNumber(m, "height_m", Interval("(]", 0, 1000, "m"));
   o.width_m = ReadNumber(m, "width_m", Interval("(]", 0, 10000, "m"));
+  if (tut && FromTurbineM(*tut, o.bearing_deg, o.distance_m) < 0.01) {
+    Fail(f,
+         "is at the turbine under test (layout.turbine_under_test); check the "
+         "positions");
+  }
   return o;
-}
-
-// One decimal, as in the sectors command.
-std::string Degrees(double x) {
-  char buf[32];
-  std::snprintf(buf, sizeof buf, "%.1f", x);
-  return buf;
 }
 
 std::vector<Field> NonEmptyList(const Field& f, const std::string& what) {
@@ -118,23 +162,30 @@ std::vector<Field> NonEmptyList(const Field& f, const std::string& what) {
   return items;
 }
 
-SiteLayout ReadSiteLayout(const Field& f) {
+SiteLayout ReadSiteLayout(const Field& f, const TurbineSpec& turbine) {
   const FieldMap m(f, kLayoutFields);
-  if (!m.Has("neighbours") && !m.Has("obstacles") && !m.Has("exclusions_deg")) {
-    Fail(f, "gives nothing to exclude; give neighbours, obstacles or exclusions_deg");
+  if (!m.Has("turbine_under_test") && !m.Has("neighbours") && !m.Has("obstacles") &&
+      !m.Has("exclusions_deg")) {
+    Fail(f,
+         "gives nothing to exclude; give turbine_under_test, neighbours, obstacles or "
+         "exclusions_deg");
   }
   std::optional<Point> mast;
   if (const auto point = m.Find("mast")) mast = ReadPoint(*point);
   SiteLayout layout;
+  if (const auto tut = m.Find("turbine_under_test")) {
+    layout.turbine_under_test = ReadTurbineUnderTest(*tut, mast, turbine);
+  }
+  const std::optional<TurbineUnderTest>& tut = layout.turbine_under_test;
   NameSet names("neighbour or obstacle");
   if (const auto list = m.Find("neighbours")) {
     for (const Field& item : NonEmptyList(*list, "neighbour")) {
-      layout.neighbours.push_back(ReadNeighbour(item, mast, &names));
+      layout.neighbours.push_back(ReadNeighbour(item, mast, tut, &names));
     }
   }
   if (const auto list = m.Find("obstacles")) {
     for (const Field& item : NonEmptyList(*list, "obstacle")) {
-      layout.obstacles.push_back(ReadObstacle(item, mast, &names));
+      layout.obstacles.push_back(ReadObstacle(item, mast, tut, &names));
     }
   }
   if (const auto list = m.Find("exclusions_deg")) {
@@ -146,13 +197,16 @@ SiteLayout ReadSiteLayout(const Field& f) {
 }  // namespace
 
 void ReadLayout(const Field& f, bool sectors_given, Plan* plan) {
-  plan->layout = ReadSiteLayout(f);
+  plan->layout = ReadSiteLayout(f, plan->turbine);
   plan->valid_sectors = ValidSectorsFromLayout(plan->layout, plan->valid_sectors);
   if (!plan->valid_sectors.empty()) return;
   std::string sectors;
   for (const DisturbedSector& s : DisturbedSectors(plan->layout)) {
     if (AngleRangeWidth(s.range) <= 0.0) continue;
-    sectors += (sectors.empty() ? "" : ", ") + s.reason + " " +
+    const char* view = s.seen_from == Viewpoint::kTurbineUnderTest
+                           ? " seen from the turbine under test"
+                           : "";
+    sectors += (sectors.empty() ? "" : ", ") + s.reason + view + " " +
                Degrees(s.range.from_deg) + "-" + Degrees(s.range.to_deg) + " deg";
   }
   Fail(f,

@@ -128,23 +128,70 @@ double ObstacleEquivalentDiameterM(const Obstacle& o) {
   return 2.0 * o.height_m * o.width_m / (o.height_m + o.width_m);
 }
 
-std::vector<DisturbedSector> DisturbedSectors(const SiteLayout& layout) {
-  std::vector<DisturbedSector> sectors;
+PolarPosition SeenFrom(const PolarPosition& from, const PolarPosition& to) {
+  const double rad = kPi / 180.0;
+  const double east = to.distance_m * std::sin(to.bearing_deg * rad) -
+                      from.distance_m * std::sin(from.bearing_deg * rad);
+  const double north = to.distance_m * std::cos(to.bearing_deg * rad) -
+                       from.distance_m * std::cos(from.bearing_deg * rad);
+  // Clockwise from north: atan2(east, north).
+  double bearing = std::atan2(east, north) / rad;
+  if (bearing < 0.0) bearing += 360.0;
+  if (bearing >= 360.0) bearing = 0.0;
+  return PolarPosition{bearing, std::hypot(east, north)};
+}
+
+namespace {
+
+// The neighbours and obstacles seen from `at` (the mast: the origin).
+void AddViewOf(const SiteLayout& layout, Viewpoint view, const PolarPosition& at,
+               std::vector<DisturbedSector>* sectors) {
+  const auto place = [&](double bearing_deg, double distance_m) {
+    if (view == Viewpoint::kMast) return PolarPosition{bearing_deg, distance_m};
+    return SeenFrom(at, PolarPosition{bearing_deg, distance_m});
+  };
   for (const NeighbourTurbine& n : layout.neighbours) {
-    sectors.push_back(SectorAround("wake of " + n.name, "L/D", n.bearing_deg,
-                                   n.distance_m, n.rotor_diameter_m));
+    const PolarPosition p = place(n.bearing_deg, n.distance_m);
+    DisturbedSector s = SectorAround("wake of " + n.name, "L/D", p.bearing_deg,
+                                     p.distance_m, n.rotor_diameter_m);
+    s.seen_from = view;
+    s.kind = DisturbanceKind::kNeighbour;
+    sectors->push_back(s);
   }
   for (const Obstacle& o : layout.obstacles) {
+    const PolarPosition p = place(o.bearing_deg, o.distance_m);
     const double d_e = ObstacleEquivalentDiameterM(o);
     char diameter[48];
     std::snprintf(diameter, sizeof diameter, ", D_e %.1f m", d_e);
     DisturbedSector s =
-        SectorAround("obstacle " + o.name, "L/D_e", o.bearing_deg, o.distance_m, d_e);
+        SectorAround("obstacle " + o.name, "L/D_e", p.bearing_deg, p.distance_m, d_e);
     s.reason.insert(s.reason.size() - 1, diameter);
+    s.seen_from = view;
+    s.kind = DisturbanceKind::kObstacle;
+    sectors->push_back(s);
+  }
+}
+
+}  // namespace
+
+std::vector<DisturbedSector> DisturbedSectors(const SiteLayout& layout) {
+  std::vector<DisturbedSector> sectors;
+  const std::optional<TurbineUnderTest>& tut = layout.turbine_under_test;
+  if (tut) {
+    DisturbedSector s =
+        SectorAround("wake of the turbine under test " + tut->name, "L/D",
+                     tut->bearing_deg, tut->distance_m, tut->rotor_diameter_m);
+    s.kind = DisturbanceKind::kTurbineUnderTest;
     sectors.push_back(s);
   }
+  AddViewOf(layout, Viewpoint::kMast, PolarPosition{}, &sectors);
+  if (tut) {
+    AddViewOf(layout, Viewpoint::kTurbineUnderTest,
+              PolarPosition{tut->bearing_deg, tut->distance_m}, &sectors);
+  }
   for (const AngleRange& r : layout.exclusions) {
-    sectors.push_back(DisturbedSector{"manual exclusion", r, ""});
+    sectors.push_back(DisturbedSector{"manual exclusion", r, "", Viewpoint::kMast,
+                                      DisturbanceKind::kExclusion});
   }
   return sectors;
 }
