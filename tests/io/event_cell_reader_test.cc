@@ -153,9 +153,10 @@ std::vector<BadInput> BadInputs() {
        "plan.yaml:11:11: capture_matrix.events: is empty; give at least one event cell, "
        "or leave the field out"},
       {"reduced without a reduce rule", b + reduced,
-       "plan.yaml:16:5: capture_matrix.reduced: no curtailment rule has action: reduce, "
-       "so no record is ever in reduced mode and these cells could never fill; add such "
-       "a rule or remove reduced"},
+       "plan.yaml:16:5: capture_matrix.reduced: no curtailment rule has action: reduce "
+       "and the turbine has no storm_control, so no record is ever in reduced mode and "
+       "these cells could never fill; add such a rule or storm_control, or remove "
+       "reduced"},
       {"reduced above cut-out",
        Replace(b + Replace(reduced, "[4, 6]", "[25, 26]"), "capture_matrix:\n",
                "curtailment: [{name: noise, hours: [22, 6], action: reduce}]\n"

@@ -124,7 +124,7 @@ const std::string kPlanFields =
     "outages, curtailment, manual_tests, quality_reject_fraction, capture_matrix, cost";
 const std::string kTurbineFields =
     "valid fields: name, rated_power_kw, rotor_diameter_m, hub_height_m, cut_in_ms, "
-    "rated_ms, cut_out_ms, restart_ms";
+    "rated_ms, cut_out_ms, restart_ms, restart_wait_min, shutdown_rules, storm_control";
 const std::string kRestartRule =
     "must be above cut_in_ms (3) and at most cut_out_ms (25)";
 

@@ -74,6 +74,19 @@ TEST(PlainStretchTest, SecondDemoPlanRunsAgreeWithTheFullLoop) {
   ExpectSameRuns(DemoPlan("plan-estuary.yaml"), "estuary plan");
 }
 
+// Stops on short-term averages, a restart wait and storm control: records at
+// or above the shutdown unit's attention speed and those while the turbine
+// is stopped go to the full step from the shorter path; both loops must draw
+// the same stops.
+TEST(PlainStretchTest, HighWindShutdownAgreesWithTheFullLoop) {
+  Plan plan = DemoPlan("plan.yaml");
+  plan.turbine.shutdown_rules = {{30.0, 27.0}, {3.0, 31.0}};
+  plan.turbine.restart_wait_min = 30;
+  ExpectSameRuns(plan, "short-term shutdown rules and restart wait");
+  plan.turbine.storm_control_from_ms = plan.turbine.cut_out_ms - 3.0;
+  ExpectSameRuns(plan, "and storm control");
+}
+
 // Parked records counted while the turbine is out: those stretches take the
 // full path; the ones around them the shorter one.
 TEST(PlainStretchTest, ParkedCountsDuringOutagesAgreeWithTheFullLoop) {

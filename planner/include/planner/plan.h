@@ -18,6 +18,14 @@
 
 namespace planner {
 
+// A high-wind stop on a short-term average: the turbine stops in a record in
+// which the averaging_s moving average of the wind speed reaches threshold_ms
+// (docs/methods.md, "High-wind shutdown on short-term averages").
+struct ShortTermShutdown {
+  double averaging_s = 3.0;    // 1 <= tau < 600 s (600 s is cut_out_ms)
+  double threshold_ms = 35.0;  // above restart_ms
+};
+
 struct TurbineSpec {
   std::string name;
   double rated_power_kw = 0.0;  // informative
@@ -29,6 +37,18 @@ struct TurbineSpec {
   // After a high-wind stop the turbine restarts only when V < restart_ms
   // (hysteresis). restart_ms <= cut_out_ms; default = cut_out_ms - 3.
   double restart_ms = 22.0;
+  // After a high-wind stop the turbine restarts only once the 10-minute mean
+  // has stayed below restart_ms this long, minutes (0: in the first record
+  // below it). Rounded up to whole records.
+  double restart_wait_min = 0.0;
+  // Stops on short-term averages besides the 10-minute mean's cut_out_ms
+  // (none by default: today's cut-out on the 10-minute mean alone).
+  std::vector<ShortTermShutdown> shutdown_rules;
+  // Storm control: from storm_control_from_ms up to cut_out_ms the turbine
+  // runs on in a reduced mode (records of the reduced state) instead of
+  // stopping; 0 = no storm control. The plan's storm_control.to_ms is
+  // cut_out_ms then.
+  double storm_control_from_ms = 0.0;
 };
 
 // Law of a duration (up time or repair time), given by its mean.

@@ -265,14 +265,16 @@ void ReadState(const Field& f, OperatingState state, const TurbineSpec& turbine,
 }  // namespace
 
 // Reduced-mode records exist only while a curtailment rule with action
-// reduce holds.
+// reduce holds, or under storm control.
 void CheckReduceRule(const Field& f, const Plan& plan) {
+  if (plan.turbine.storm_control_from_ms > 0) return;
   for (const CurtailmentRule& rule : plan.curtailment) {
     if (rule.action == CurtailmentRule::Action::kReduce) return;
   }
   Fail(f,
-       "no curtailment rule has action: reduce, so no record is ever in reduced mode "
-       "and these cells could never fill; add such a rule or remove reduced");
+       "no curtailment rule has action: reduce and the turbine has no storm_control, "
+       "so no record is ever in reduced mode and these cells could never fill; add "
+       "such a rule or storm_control, or remove reduced");
 }
 
 CaptureMatrix ReadCaptureMatrix(const Field& f, const Plan& plan) {

@@ -18,6 +18,7 @@
 #include "io/manual_test_reader.h"
 #include "io/outage_reader.h"
 #include "io/plan_fields.h"
+#include "io/turbine_reader.h"
 #include "io/weather_reader.h"
 #include "io/yaml_fields.h"
 
@@ -45,19 +46,9 @@ const std::vector<std::string> kPlanFields = {"name",
                                               "cost"};
 const std::vector<std::string> kCostFields = {"weekly", "mobilisation", "currency"};
 const std::vector<std::string> kCampaignFields = {"start", "deadline", "horizon_weeks"};
-const std::vector<std::string> kTurbineFields = {
-    "name",      "rated_power_kw", "rotor_diameter_m", "hub_height_m",
-    "cut_in_ms", "rated_ms",       "cut_out_ms",       "restart_ms"};
 
 // Twenty years: longer horizons are typing mistakes, and cost run time.
 constexpr int kMaxHorizonWeeks = 1040;
-constexpr double kMaxWindSpeedMs = 50.0;
-constexpr double kDefaultRestartMarginMs = 3.0;
-
-// "above <name> (<value>)" pieces of turbine messages.
-std::string Named(const std::string& name, double value) {
-  return name + " (" + io::FormatNumber(value) + ")";
-}
 
 void ReadCampaign(const Field& f, Plan* plan) {
   const FieldMap m(f, kCampaignFields);
@@ -82,47 +73,6 @@ void ReadCampaign(const Field& f, Plan* plan) {
                      " weeks after the start); must be at least " +
                      std::to_string(needed));
   }
-}
-
-// restart_ms defaults to cut_out_ms - 3 and must lie in (cut_in, cut_out].
-void ReadRestart(const FieldMap& m, TurbineSpec* t) {
-  const std::optional<Field> f = m.Find("restart_ms");
-  const Field at = f ? *f : Field{YAML::Node(), m.PathOf("restart_ms"), m.self().where};
-  t->restart_ms = f ? io::AsNumber(*f, Interval("(]", 0, kMaxWindSpeedMs, "m/s"))
-                    : t->cut_out_ms - kDefaultRestartMarginMs;
-  if (t->restart_ms > t->cut_in_ms && t->restart_ms <= t->cut_out_ms) return;
-  const std::string what =
-      f ? io::Text(*f)
-        : "the default cut_out_ms - 3 = " + io::FormatNumber(t->restart_ms);
-  io::Fail(at, what + " must be above " + Named("cut_in_ms", t->cut_in_ms) +
-                   " and at most " + Named("cut_out_ms", t->cut_out_ms));
-}
-
-TurbineSpec ReadTurbine(const Field& f) {
-  const FieldMap m(f, kTurbineFields);
-  const io::Limits speed = Interval("(]", 0, kMaxWindSpeedMs, "m/s");
-  TurbineSpec t;
-  t.name = io::ReadName(m, "name");
-  t.rated_power_kw =
-      io::ReadNumber(m, "rated_power_kw", Interval("(]", 0, 1e6, "kW"), 0.0);
-  t.rotor_diameter_m =
-      io::ReadNumber(m, "rotor_diameter_m", Interval("(]", 0, 500, "m"), 0.0);
-  t.hub_height_m = io::ReadNumber(m, "hub_height_m", Interval("(]", 0, 500, "m"), 0.0);
-  t.cut_in_ms = io::ReadNumber(m, "cut_in_ms", speed);
-  t.cut_out_ms = io::ReadNumber(m, "cut_out_ms", speed);
-  if (t.cut_in_ms >= t.cut_out_ms) {
-    io::Fail(m.Get("cut_in_ms"), io::Text(m.Get("cut_in_ms")) + " must be below " +
-                                     Named("cut_out_ms", t.cut_out_ms));
-  }
-  const Field rated = m.Get("rated_ms");
-  t.rated_ms = io::AsNumber(rated, speed);
-  if (t.rated_ms <= t.cut_in_ms || t.rated_ms > t.cut_out_ms) {
-    io::Fail(rated, io::Text(rated) + " must be above " +
-                        Named("cut_in_ms", t.cut_in_ms) + " and at most " +
-                        Named("cut_out_ms", t.cut_out_ms));
-  }
-  ReadRestart(m, &t);
-  return t;
 }
 
 // The site model path is relative to the plan's folder.
@@ -177,7 +127,7 @@ Plan ParsePlan(const std::string& yaml_text, const std::string& file_name,
   plan.name = io::ReadName(m, "name");
   plan.source_file = file_name;
   ReadCampaign(m.Get("campaign"), &plan);
-  plan.turbine = ReadTurbine(m.Get("turbine"));
+  plan.turbine = io::ReadTurbine(m.Get("turbine"));
   const std::optional<Field> sectors = m.Find("valid_sectors_deg");
   if (sectors) {
     plan.valid_sectors =

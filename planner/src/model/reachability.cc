@@ -125,6 +125,7 @@ struct Analysis {
   bool turbine_can_be_down = false;
   SpeedSet always_stop, always_reduce;  // rules in force at all times
   SpeedSet any_stop, any_reduce;        // rules in force at some time
+  SpeedSet any_reduce_or_storm;         // any_reduce and the storm-control band
   std::vector<std::string> always_names;
   SpeedSet operating;   // [cut-in, cut-out)
   SpeedSet producing;   // speeds at which the turbine can produce at all
@@ -173,15 +174,29 @@ Analysis Analyse(const Plan& plan) {
     a.producing = Subtract(a.operating, a.always_stop);
     a.normal = Subtract(a.producing, a.always_reduce);
     a.reduced = Intersect(a.producing, a.any_reduce);
+    a.any_reduce_or_storm = a.any_reduce;
+    if (t.storm_control_from_ms > 0) {
+      const SpeedSet storm = {{t.storm_control_from_ms, t.cut_out_ms}};
+      a.reduced = Unite(a.reduced, Subtract(storm, a.always_stop));
+      a.normal = Subtract(a.normal, storm);
+      a.any_reduce_or_storm = Unite(a.any_reduce, storm);
+    }
   }
+  // A stop on a short-term average can come at any speed the turbine runs
+  // at (however rarely at low ones); after it, the restart wait parks the
+  // turbine below the restart speed too.
+  const bool short_term_stops = !t.shutdown_rules.empty();
+  const double parked_from_ms =
+      short_term_stops || t.restart_wait_min > 0 ? t.cut_in_ms : t.restart_ms;
   // Parked: below cut-in; from the restart speed up after a high-wind stop;
   // under a stop rule; during a turbine outage when such records count.
   if (!a.turbine_always_down) {
-    a.parked = Unite({{0.0, t.cut_in_ms}, {t.restart_ms, kInf}}, a.any_stop);
+    a.parked = Unite({{0.0, t.cut_in_ms}, {parked_from_ms, kInf}}, a.any_stop);
   }
   if (plan.parked_counts_during_outage && a.turbine_can_be_down) a.parked = {{0.0, kInf}};
   if (!a.producing.empty()) {
-    a.stop_event = Unite({{0.0, t.cut_in_ms}, {t.cut_out_ms, kInf}},
+    const double stops_from_ms = short_term_stops ? t.cut_in_ms : t.cut_out_ms;
+    a.stop_event = Unite({{0.0, t.cut_in_ms}, {stops_from_ms, kInf}},
                          Intersect(a.any_stop, a.operating));
   }
   return a;
@@ -213,9 +228,14 @@ std::string RecordCellReason(const Plan& plan, const Analysis& a, const Cell& c)
       return AlwaysRulesText(a) + " and stops or reduces the turbine at " + range +
              ", so it never produces normally there";
     case OperatingState::kReduced:
-      if (Intersect(Intersect({c.wind_ms}, a.operating), a.any_reduce).empty()) {
+      if (Intersect(Intersect({c.wind_ms}, a.operating), a.any_reduce_or_storm).empty()) {
+        const std::string storm =
+            t.storm_control_from_ms > 0
+                ? ", and storm control reduces only from " +
+                      SpeedText(t.storm_control_from_ms) + " up"
+                : "";
         return "no curtailment rule with action: reduce applies between " + operating +
-               " at " + range;
+               " at " + range + storm;
       }
       return AlwaysRulesText(a) + " and stops the turbine at " + range;
     case OperatingState::kParked:

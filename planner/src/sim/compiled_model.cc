@@ -175,6 +175,10 @@ CompiledModel CompileModel(const Plan& plan, double relaxed_share) {
   m.cut_in_ms = plan.turbine.cut_in_ms;
   m.cut_out_ms = plan.turbine.cut_out_ms;
   m.restart_ms = plan.turbine.restart_ms;
+  const double hub_m = plan.turbine.hub_height_m;
+  m.shutdown = CompileShutdown(plan.turbine, m.ti_law,
+                               hub_m > 0 ? IecKaimalLengthScale(hub_m)
+                                         : RecordSpectrum().length_scale_m);
   m.turbine_outages = MakeRenewalLaw(plan.turbine_outages);
   m.daq_outages = MakeRenewalLaw(plan.daq_outages);
   m.parked_counts_during_outage = plan.parked_counts_during_outage;

@@ -13,6 +13,7 @@
 #include "planner/plan.h"
 #include "planner/turbulence.h"
 #include "sim/bin_lookup.h"
+#include "sim/high_wind_shutdown.h"
 #include "sim/renewal_process.h"
 #include "sim/weather_process.h"
 
@@ -154,6 +155,7 @@ struct CompiledModel {
 
   // Turbine.
   double cut_in_ms = 3, cut_out_ms = 25, restart_ms = 22;
+  ShutdownTables shutdown;  // stops and restarts in high wind, storm control
   RenewalLaw turbine_outages, daq_outages;
   std::vector<StepInterval> planned_turbine, planned_daq;  // sorted, merged
   bool parked_counts_during_outage = false;

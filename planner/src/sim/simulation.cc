@@ -21,6 +21,7 @@ constexpr uint64_t kDaqSalt = 0x6461712D6F757421ULL;
 constexpr uint64_t kYearSalt = 0x796561722D666163ULL;
 constexpr uint64_t kTiSalt = 0x74692D6C6174656EULL;
 constexpr uint64_t kReplaySalt = 0x7265706C61792D62ULL;
+constexpr uint64_t kShutdownSalt = 0x6869676877696E64ULL;
 
 // Normal score z with Phi(z) = F(x) for a unit-scale Weibull of shape k:
 // the inverse of SpeedTransform (Boost.Math's normal quantile).
@@ -43,7 +44,11 @@ enum Curtail : int { kNotCurtailed = 0, kReduce = 1, kStop = 2 };
 // The model's per-step limits, copied into a local of the day loop so that
 // they stay in registers (stores through RunState could otherwise alias them).
 struct StepLimits {
-  double cut_in_ms, cut_out_ms, restart_ms;
+  double cut_in_ms;
+  // From here up, or while stopped for high wind, the shutdown unit decides
+  // (ShutdownTables::attention_ms); below it a running turbine runs on.
+  double attention_ms;
+  double storm_from_ms;  // reduced mode from here (storm control)
   bool parked_counts_during_outage;
 };
 
@@ -58,15 +63,6 @@ struct DayTallies {
   int64_t curtailed_steps;
   bool high_wind_stop;
 };
-
-// Cut-out hysteresis: whether the turbine is stopped for high wind after a
-// record of `speed_ms`, given whether it was before. Stopped at cut-out,
-// restarted below the restart speed.
-inline bool HighWindStop(bool stopped, double speed_ms, const StepLimits& lim) {
-  if (speed_ms >= lim.cut_out_ms) return true;
-  if (stopped && speed_ms < lim.restart_ms) return false;
-  return stopped;
-}
 
 // The mutable state of one run. Run() keeps it in a local so that the
 // compiler can hold much of it in registers through the hot loop.
@@ -130,6 +126,7 @@ class RunLoop {
              static_cast<int64_t>(m.day_month.size())),
         planned_turbine_(m.planned_turbine),
         planned_daq_(m.planned_daq),
+        shutdown_(m.shutdown, MakeRunEngine(seed ^ kShutdownSalt, run)),
         last_test_(m.manual_tests.size(), INT64_MIN / 2),
         out_(out) {}
 
@@ -173,6 +170,10 @@ class RunLoop {
                    bool* transition);
   uint32_t DirectionRules(int sector, double direction_u) const;
   void UpdateOutages(int64_t step, RunState& s);
+  bool HighWind(bool was_stopped, double speed_ms, bool may_run, int64_t step,
+                const DayWeather& w, int k, RunState& s);
+  double RecordSigma(double speed_ms, int64_t step, const DayWeather& w, int k,
+                     RunState& s);
   Curtail CurtailmentAt(double speed_ms, uint32_t rules) const;
   void OnTransition(bool producing, double speed_ms, bool valid, int64_t step,
                     RunState& s);
@@ -201,6 +202,7 @@ class RunLoop {
   Engine turbine_engine_, daq_engine_;
   RenewalProcess turbine_, daq_;
   OutageWindows planned_turbine_, planned_daq_;
+  HighWindShutdown shutdown_;
   std::vector<int64_t> last_test_;  // per manual test: step it was last done
   ZigguratNormal normal_;
   RunResult* out_;
@@ -354,6 +356,33 @@ inline void RunLoop::SetDirection(int sector, double direction_u, int64_t step,
                 planned_turbine_.NextChangeStep(), planned_daq_.NextChangeStep()});
 }
 
+// The shutdown unit's answer for a record at or above its attention speed or
+// while the turbine is stopped; the record's standard deviation is made
+// (from the TI process) only where a short-term rule could stop it.
+[[gnu::noinline, gnu::cold]] bool RunLoop::HighWind(bool was_stopped, double speed_ms,
+                                                    bool may_run, int64_t step,
+                                                    const DayWeather& w, int k,
+                                                    RunState& s) {
+  const double sigma_ms = shutdown_.MayTrip(was_stopped, speed_ms, may_run)
+                              ? RecordSigma(speed_ms, step, w, k, s)
+                              : 0.0;
+  return shutdown_.Next(was_stopped, speed_ms, may_run, sigma_ms);
+}
+
+// The record's standard deviation, TI x mean speed. The TI process is
+// advanced to this step, so that the record's cell (CellOf, same step) has
+// the same TI: its advance by zero steps keeps the value.
+double RunLoop::RecordSigma(double speed_ms, int64_t step, const DayWeather& w, int k,
+                            RunState& s) {
+  s.x_ti = m_.ti_ar1.Advance(s.x_ti, step - s.ti_step, TiNormal());
+  s.ti_step = step;
+  const double measured = m_.replay != nullptr ? w.measured_log_ti[k] : NAN;
+  const double log_ti =
+      std::isnan(measured) ? m_.ti_law.LogSample(speed_ms, s.x_ti) : measured;
+  if (trace_ != nullptr) traced_ti_ = std::exp(log_ti), traced_ti_step_ = step;
+  return std::exp(log_ti) * speed_ms;
+}
+
 // Stop wins over reduce when several rules apply.
 Curtail RunLoop::CurtailmentAt(double speed_ms, uint32_t rules) const {
   Curtail result = kNotCurtailed;
@@ -420,24 +449,28 @@ inline void RunLoop::Step(int64_t step, int k, const DayWeather& w, const StepLi
   const double speed = w.speed_ms[k];
   day.speed_sum_ms += speed;
 
-  day.high_wind_stop = HighWindStop(day.high_wind_stop, speed, lim);
   Curtail curtail = kNotCurtailed;
   if (const uint32_t rules = s.hour_rules & s.direction_rules; rules != 0) {
     curtail = CurtailmentAt(speed, rules);
     day.curtailed_steps += curtail != kNotCurtailed;
+  }
+  if (speed >= lim.attention_ms || day.high_wind_stop) {
+    day.high_wind_stop = HighWind(day.high_wind_stop, speed,
+                                  s.turbine_up && curtail != kStop, step, w, k, s);
   }
   const bool producing =
       s.turbine_up && !day.high_wind_stop && speed >= lim.cut_in_ms && curtail != kStop;
   const bool quality_ok = w.quality_ok[k];
   const bool transition = producing != s.producing;
   if (transition) OnTransition(producing, speed, s.recordable && quality_ok, step, s);
-  const int state = producing ? (curtail == kReduce ? 2 : 0) : 1;
+  const int state =
+      producing ? (curtail == kReduce || speed >= lim.storm_from_ms ? 2 : 0) : 1;
   int cell = -1;
   if (s.recordable) {
     // (Not in the record in which production started: a test waits for the
     // next one, so that a record carries at most one event.)
     if (s.tests_open > 0 && s.crew_here && producing && !transition &&
-        curtail == kNotCurtailed && TryManualTest(speed, quality_ok, step, s)) {
+        state == 0 && TryManualTest(speed, quality_ok, step, s)) {
       // A test record is a transient, not a production record.
       if constexpr (kTrace) Trace(step, speed, state, quality_ok, true, -1, s);
       return;
@@ -563,14 +596,13 @@ int RunLoop::PlainStretch(int k, int end, int64_t day_step, const DayWeather& w,
   const bool tests_possible = kCounting && s.crew_here && s.tests_open > 0;
   for (; k < end; ++k) {
     const double speed = w.speed_ms[k];
-    const bool stop = HighWindStop(high_wind_stop, speed, lim);
-    const bool producing = turbine_up && !stop && speed >= lim.cut_in_ms;
-    if (producing != producing_before) {
+    // (High wind, storm control or a stopped turbine: the full step decides.)
+    const bool producing = turbine_up && speed >= lim.cut_in_ms;
+    if (producing != producing_before || speed >= lim.attention_ms || high_wind_stop) {
       *transition = true;
       break;
     }
     speed_sum_ms += speed;
-    high_wind_stop = stop;
     if constexpr (kCounting) {
       const int64_t step = day_step + k;
       if (tests_possible && producing &&
@@ -587,7 +619,6 @@ int RunLoop::PlainStretch(int k, int end, int64_t day_step, const DayWeather& w,
     }
   }
   day.speed_sum_ms = speed_sum_ms;
-  day.high_wind_stop = high_wind_stop;
   return k;
 }
 
@@ -621,8 +652,8 @@ void RunLoop::RunSteps(int64_t first_day, int64_t step, RunState& s, WeatherStat
   const int64_t days = static_cast<int64_t>(m_.day_month.size());
   Engine blocks = MakeRunEngine(seed_ ^ kReplaySalt, run_);
   DayWeather w;
-  const StepLimits lim{m_.cut_in_ms, m_.cut_out_ms, m_.restart_ms,
-                       m_.parked_counts_during_outage};
+  const StepLimits lim{m_.cut_in_ms, m_.shutdown.attention_ms(),
+                       m_.shutdown.storm_from_ms, m_.parked_counts_during_outage};
   for (int64_t day = first_day; day < days; ++day) {
     if constexpr (kReplay) {
       FillReplay(m_, day, first_day, w, ws, weather, blocks);

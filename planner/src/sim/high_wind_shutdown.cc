@@ -1,0 +1,91 @@
+#include "sim/high_wind_shutdown.h"
+
+#include <algorithm>
+
+#include "sim/compiled_model.h"
+
+namespace planner {
+namespace {
+
+constexpr double kRecordS = 600.0;
+constexpr double kGridStepMs = 0.1;
+
+}  // namespace
+
+double ShutdownTables::attention_ms() const {
+  return std::min({cut_out_ms, trip_floor_ms, storm_from_ms});
+}
+
+double ShutdownTables::TripProbability(double speed_ms, double sigma_ms) const {
+  if (rules.empty()) return 0.0;
+  const double g = std::clamp((speed_ms - grid_lo_ms) / grid_step_ms, 0.0,
+                              static_cast<double>(rules[0].at_speed.size() - 1));
+  const size_t i = std::min(static_cast<size_t>(g), rules[0].at_speed.size() - 2);
+  const double f = g - static_cast<double>(i);
+  double p = 0.0;
+  for (const ShortTermRuleTable& r : rules) {
+    const MovingAverageMoments& a = r.at_speed[i];
+    const MovingAverageMoments& b = r.at_speed[i + 1];
+    const MovingAverageMoments m{a.sigma_ratio + f * (b.sigma_ratio - a.sigma_ratio),
+                                 a.zero_upcrossing_hz +
+                                     f * (b.zero_upcrossing_hz - a.zero_upcrossing_hz)};
+    p = std::max(p, ExceedanceFromMoments(m, speed_ms, sigma_ms, kRecordS, r.threshold_ms));
+  }
+  return p;
+}
+
+ShutdownTables CompileShutdown(const TurbineSpec& t, const TiLaw& ti_law,
+                               double length_scale_m) {
+  ShutdownTables s;
+  s.cut_out_ms = t.cut_out_ms;
+  s.restart_ms = t.restart_ms;
+  s.restart_wait_steps = static_cast<int>(std::ceil(t.restart_wait_min / 10.0 - 1e-9));
+  if (t.storm_control_from_ms > 0) s.storm_from_ms = t.storm_control_from_ms;
+  if (t.shutdown_rules.empty()) return s;
+  s.grid_lo_ms = t.cut_in_ms;
+  s.grid_step_ms = kGridStepMs;
+  const int points =
+      std::max(2, static_cast<int>(std::ceil((t.cut_out_ms - t.cut_in_ms) / kGridStepMs)) + 1);
+  for (const ShortTermShutdown& rule : t.shutdown_rules) {
+    ShortTermRuleTable table{rule.averaging_s, rule.threshold_ms, {}};
+    for (int i = 0; i < points; ++i) {
+      RecordSpectrum spectrum;
+      spectrum.mean_speed_ms = s.grid_lo_ms + i * kGridStepMs;
+      spectrum.length_scale_m = length_scale_m;
+      spectrum.record_s = kRecordS;
+      table.at_speed.push_back(MovingAverageMomentsOf(spectrum, rule.averaging_s));
+    }
+    s.rules.push_back(std::move(table));
+  }
+  // The trip floor: the lowest grid speed from which on some record may trip
+  // with a probability of kTripNegligible or more (scanning down from cut-out,
+  // so that a dip of the probability in between does not end it early).
+  s.trip_floor_ms = t.cut_out_ms;
+  for (int i = points - 1; i >= 0; --i) {
+    const double v = s.grid_lo_ms + i * kGridStepMs;
+    if (v >= t.cut_out_ms) continue;
+    const double sigma = v * std::exp(ti_law.LogSample(v, kTripTiSigmas));
+    if (s.TripProbability(v, sigma) >= kTripNegligible) s.trip_floor_ms = v;
+  }
+  return s;
+}
+
+bool HighWindShutdown::Next(bool was_stopped, double speed_ms, bool may_run,
+                            double sigma_ms) {
+  if (speed_ms >= t_.cut_out_ms) {
+    below_restart_ = 0;
+    return true;
+  }
+  if (was_stopped) {
+    if (speed_ms >= t_.restart_ms || ++below_restart_ <= t_.restart_wait_steps) {
+      if (speed_ms >= t_.restart_ms) below_restart_ = 0;
+      return true;
+    }
+    below_restart_ = 0;
+    return false;
+  }
+  if (!MayTrip(was_stopped, speed_ms, may_run)) return false;
+  return UniformDouble(engine_) < t_.TripProbability(speed_ms, sigma_ms);
+}
+
+}  // namespace planner
