@@ -8,7 +8,38 @@ namespace planner {
 namespace {
 
 constexpr double kRecordS = 600.0;
-constexpr double kGridStepMs = 0.1;
+constexpr double kGridStepMs = ShutdownTables::kGridStepMs;
+// ln TI searched for the floors: TI from 0.1 % to 300 %.
+constexpr double kLowestLogTi = -6.9, kHighestLogTi = 1.1;
+
+// The lowest ln TI at which a record at speed_ms trips with probability
+// kTripNegligible or more (bisection; p grows with sigma), +inf if none.
+double LogTiFloor(const ShutdownTables& s, double speed_ms) {
+  const auto p = [&](double log_ti) {
+    return s.TripProbability(speed_ms, speed_ms * std::exp(log_ti));
+  };
+  if (p(kHighestLogTi) < kTripNegligible) return HUGE_VAL;
+  double lo = kLowestLogTi, hi = kHighestLogTi;
+  if (p(lo) >= kTripNegligible) return -HUGE_VAL;
+  for (int i = 0; i < 50; ++i) {
+    const double mid = 0.5 * (lo + hi);
+    (p(mid) >= kTripNegligible ? hi : lo) = mid;
+  }
+  return lo;
+}
+
+// The trip probability at speed_ms averaged over the TI law there (the
+// latent normal x on [-8, 8], midpoint rule with steps of 0.05).
+double MeanTripProbability(const ShutdownTables& s, const TiLaw& ti_law,
+                           double speed_ms) {
+  constexpr double kStep = 0.05;
+  double mean = 0.0;
+  for (double x = -8.0 + 0.5 * kStep; x < 8.0; x += kStep) {
+    const double sigma = speed_ms * std::exp(ti_law.LogSample(speed_ms, x));
+    mean += s.TripProbability(speed_ms, sigma) * std::exp(-0.5 * x * x);
+  }
+  return mean * kStep / std::sqrt(2.0 * M_PI);
+}
 
 }  // namespace
 
@@ -57,21 +88,27 @@ ShutdownTables CompileShutdown(const TurbineSpec& t, const TiLaw& ti_law,
     }
     s.rules.push_back(std::move(table));
   }
-  // The trip floor: the lowest grid speed from which on some record may trip
-  // with a probability of kTripNegligible or more (scanning down from cut-out,
-  // so that a dip of the probability in between does not end it early).
+  // The trip floor: scanning down from cut-out, the first grid speed at
+  // which a record's trip probability, averaged over the TI law there, falls
+  // below kTripNegligible (the probability grows with the speed).
   s.trip_floor_ms = t.cut_out_ms;
   for (int i = points - 1; i >= 0; --i) {
     const double v = s.grid_lo_ms + i * kGridStepMs;
     if (v >= t.cut_out_ms) continue;
-    const double sigma = v * std::exp(ti_law.LogSample(v, kTripTiSigmas));
-    if (s.TripProbability(v, sigma) >= kTripNegligible) s.trip_floor_ms = v;
+    if (MeanTripProbability(s, ti_law, v) < kTripNegligible) break;
+    s.trip_floor_ms = v;
+  }
+  for (int i = 0; i < points; ++i) {
+    s.log_ti_floor.push_back(LogTiFloor(s, s.grid_lo_ms + i * kGridStepMs));
+  }
+  for (int i = 0; i + 1 < points; ++i) {
+    s.log_ti_floor[i] = std::min(s.log_ti_floor[i], s.log_ti_floor[i + 1]);
   }
   return s;
 }
 
 bool HighWindShutdown::Next(bool was_stopped, double speed_ms, bool may_run,
-                            double sigma_ms) {
+                            double log_ti) {
   if (speed_ms >= t_.cut_out_ms) {
     below_restart_ = 0;
     return true;
@@ -84,8 +121,9 @@ bool HighWindShutdown::Next(bool was_stopped, double speed_ms, bool may_run,
     below_restart_ = 0;
     return false;
   }
-  if (!MayTrip(was_stopped, speed_ms, may_run)) return false;
-  return UniformDouble(engine_) < t_.TripProbability(speed_ms, sigma_ms);
+  if (!MayTrip(was_stopped, speed_ms, may_run) || !t_.MayTripAt(speed_ms, log_ti))
+    return false;
+  return UniformDouble(engine_) < t_.TripProbability(speed_ms, speed_ms * std::exp(log_ti));
 }
 
 }  // namespace planner

@@ -40,12 +40,16 @@ struct ShutdownTables {
   double restart_ms = 22;  // restarts below it ...
   int restart_wait_steps = 0;  // ... after this many records below it
   double storm_from_ms = HUGE_VAL;  // reduced mode from here up to cut_out_ms
-  // Below this speed no short-term rule stops the turbine with a probability
-  // of 1e-7 or more, even at a TI five standard deviations above the model's
-  // (kTripNegligible); such records are not drawn.
+  // Below this speed a record's trip probability, averaged over the site's
+  // TI law at its speed, is under kTripNegligible: no record is drawn there
+  // (the expected number of stops left out is below 1e-7 per record).
   double trip_floor_ms = HUGE_VAL;
   std::vector<ShortTermRuleTable> rules;
-  double grid_lo_ms = 0, grid_step_ms = 0.1;
+  double grid_lo_ms = 0, grid_step_ms = kGridStepMs;
+  // Per grid speed: the lowest ln TI at which the trip probability reaches
+  // kTripNegligible there and at the next grid speed (the probability grows
+  // with sigma and, below the thresholds, with the speed), +infinity if none.
+  std::vector<double> log_ti_floor;
 
   // The lowest speed at which a record may need more than the plain
   // "running" answer: min(cut_out_ms, trip_floor_ms, storm_from_ms).
@@ -53,10 +57,18 @@ struct ShutdownTables {
   // P(some short-term rule stops the turbine in a record of mean speed_ms
   // and standard deviation sigma_ms); 0 without rules.
   double TripProbability(double speed_ms, double sigma_ms) const;
+  // Whether a record of this mean and ln TI may stop the turbine with a
+  // probability of kTripNegligible or more (a few operations; false lets the
+  // loop skip the probability and its random draw).
+  bool MayTripAt(double speed_ms, double log_ti) const {
+    const double g = (speed_ms - grid_lo_ms) * (1.0 / kGridStepMs);
+    const size_t i = g <= 0 ? 0 : static_cast<size_t>(g);
+    return i < log_ti_floor.size() && log_ti >= log_ti_floor[i];
+  }
+  static constexpr double kGridStepMs = 0.1;
 };
 
 inline constexpr double kTripNegligible = 1e-7;
-inline constexpr double kTripTiSigmas = 5.0;
 
 // The tables for turbine t; ti_law gives the TI that sets the trip floor.
 // length_scale_m: the Kaimal L_1u (from the hub height).
@@ -79,9 +91,9 @@ class HighWindShutdown {
            speed_ms < t_.cut_out_ms;
   }
   // Whether the turbine is stopped for high wind in this record, given
-  // whether it was in the record before. sigma_ms is used only where
-  // MayTrip holds.
-  bool Next(bool was_stopped, double speed_ms, bool may_run, double sigma_ms);
+  // whether it was in the record before. log_ti (the record's ln TI) is used
+  // only where MayTrip holds.
+  bool Next(bool was_stopped, double speed_ms, bool may_run, double log_ti);
 
  private:
   const ShutdownTables& t_;

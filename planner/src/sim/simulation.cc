@@ -172,7 +172,7 @@ class RunLoop {
   void UpdateOutages(int64_t step, RunState& s);
   bool HighWind(bool was_stopped, double speed_ms, bool may_run, int64_t step,
                 const DayWeather& w, int k, RunState& s);
-  double RecordSigma(double speed_ms, int64_t step, const DayWeather& w, int k,
+  double RecordLogTi(double speed_ms, int64_t step, const DayWeather& w, int k,
                      RunState& s);
   Curtail CurtailmentAt(double speed_ms, uint32_t rules) const;
   void OnTransition(bool producing, double speed_ms, bool valid, int64_t step,
@@ -357,22 +357,23 @@ inline void RunLoop::SetDirection(int sector, double direction_u, int64_t step,
 }
 
 // The shutdown unit's answer for a record at or above its attention speed or
-// while the turbine is stopped; the record's standard deviation is made
-// (from the TI process) only where a short-term rule could stop it.
+// while the turbine is stopped; the record's TI is drawn (from the TI
+// process) only where a short-term rule could stop it. Only Step asks, once
+// per record (PlainStretch hands such records to it).
 [[gnu::noinline, gnu::cold]] bool RunLoop::HighWind(bool was_stopped, double speed_ms,
                                                     bool may_run, int64_t step,
                                                     const DayWeather& w, int k,
                                                     RunState& s) {
-  const double sigma_ms = shutdown_.MayTrip(was_stopped, speed_ms, may_run)
-                              ? RecordSigma(speed_ms, step, w, k, s)
-                              : 0.0;
-  return shutdown_.Next(was_stopped, speed_ms, may_run, sigma_ms);
+  const double log_ti = shutdown_.MayTrip(was_stopped, speed_ms, may_run)
+                            ? RecordLogTi(speed_ms, step, w, k, s)
+                            : 0.0;
+  return shutdown_.Next(was_stopped, speed_ms, may_run, log_ti);
 }
 
-// The record's standard deviation, TI x mean speed. The TI process is
-// advanced to this step, so that the record's cell (CellOf, same step) has
-// the same TI: its advance by zero steps keeps the value.
-double RunLoop::RecordSigma(double speed_ms, int64_t step, const DayWeather& w, int k,
+// The record's ln TI. The TI process is advanced to this step, so that the
+// record's cell (CellOf, same step) has the same TI: its advance by zero
+// steps keeps the value.
+double RunLoop::RecordLogTi(double speed_ms, int64_t step, const DayWeather& w, int k,
                             RunState& s) {
   s.x_ti = m_.ti_ar1.Advance(s.x_ti, step - s.ti_step, TiNormal());
   s.ti_step = step;
@@ -380,7 +381,7 @@ double RunLoop::RecordSigma(double speed_ms, int64_t step, const DayWeather& w, 
   const double log_ti =
       std::isnan(measured) ? m_.ti_law.LogSample(speed_ms, s.x_ti) : measured;
   if (trace_ != nullptr) traced_ti_ = std::exp(log_ti), traced_ti_step_ = step;
-  return std::exp(log_ti) * speed_ms;
+  return log_ti;
 }
 
 // Stop wins over reduce when several rules apply.
@@ -590,7 +591,7 @@ int RunLoop::PlainStretch(int k, int end, int64_t day_step, const DayWeather& w,
                           bool* transition) {
   *transition = false;
   double speed_sum_ms = day.speed_sum_ms;
-  bool high_wind_stop = day.high_wind_stop;
+  const bool high_wind_stop = day.high_wind_stop;
   const bool producing_before = s.producing;
   const bool turbine_up = s.turbine_up;
   const bool tests_possible = kCounting && s.crew_here && s.tests_open > 0;
