@@ -184,6 +184,70 @@ std::vector<BadInput> BadInputs() {
   };
 }
 
+// Lines 9-15.
+const std::string kEpisodes =
+    "outages:\n"
+    "  episodes:\n"
+    "    - name: icing\n"
+    "      starts_per_month: [2, 1.5, 1, 0.2, 0, 0, 0, 0, 0, 0.2, 1, 1.8]\n"
+    "      mean_h: 30\n"
+    "      durations: {law: lognormal, sigma: 0.9}\n"
+    "      effect: both\n";
+
+TEST(OutageReaderTest, ReadsEpisodes) {
+  const Plan plan = Parse(kBase + kEpisodes);
+  ASSERT_EQ(plan.episodes.size(), 1u);
+  const EpisodeModel& e = plan.episodes[0];
+  EXPECT_EQ(e.name, "icing");
+  EXPECT_DOUBLE_EQ(e.starts_per_month[0], 2.0);
+  EXPECT_DOUBLE_EQ(e.starts_per_month[3], 0.2);
+  EXPECT_DOUBLE_EQ(e.starts_per_month[11], 1.8);
+  EXPECT_DOUBLE_EQ(e.mean_h, 30.0);
+  EXPECT_EQ(e.duration_law.kind, DurationLaw::Kind::kLognormal);
+  EXPECT_TRUE(e.stops_turbine);
+  EXPECT_TRUE(e.invalidates_records);
+  const Plan invalid = Parse(Replace(kBase + kEpisodes, "effect: both", "effect: invalid"));
+  EXPECT_FALSE(invalid.episodes[0].stops_turbine);
+  EXPECT_TRUE(invalid.episodes[0].invalidates_records);
+  EXPECT_TRUE(Parse(kBase).episodes.empty());
+}
+
+TEST(OutageReaderTest, RejectsBadEpisodesWithExactMessages) {
+  const std::string e = kBase + kEpisodes;
+  reader_test::ExpectMessages(
+      {
+          {"eleven months", Replace(e, "[2, 1.5,", "[1.5,"),
+           "plan.yaml:12:25: outages.episodes[0].starts_per_month: 11 values given; "
+           "expected 12 (January to December)"},
+          {"never", Replace(e, "[2, 1.5, 1, 0.2, 0, 0, 0, 0, 0, 0.2, 1, 1.8]",
+                            "[0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0]"),
+           "plan.yaml:12:25: outages.episodes[0].starts_per_month: is 0 in every month, so "
+           "the episode never happens; give the mean number of starts in the months it "
+           "happens, or remove the episode"},
+          {"negative starts", Replace(e, "[2, 1.5,", "[-2, 1.5,"),
+           "plan.yaml:12:26: outages.episodes[0].starts_per_month[0]: -2 is out of range; "
+           "must be at least 0 and at most 30"},
+          {"unknown effect", Replace(e, "effect: both", "effect: freeze"),
+           "plan.yaml:15:15: outages.episodes[0].effect: 'freeze' is not an effect; valid: "
+           "stop (the turbine stops), invalid (its records do not count), both"},
+          {"no mean", Replace(e, "      mean_h: 30\n", ""),
+           "plan.yaml:11:7: outages.episodes[0].mean_h: required field is missing; give the "
+           "mean duration, or durations with the law's own scale (scale_h for weibull, mu "
+           "for lognormal)"},
+          {"zero mean", Replace(e, "mean_h: 30", "mean_h: 0"),
+           "plan.yaml:13:15: outages.episodes[0].mean_h: 0 is out of range; must be above 0 "
+           "and at most 1440 h"},
+          {"same name twice",
+           e + "    - name: icing\n"
+               "      starts_per_month: [1, 1, 1, 1, 1, 1, 1, 1, 1, 1, 1, 1]\n"
+               "      mean_h: 5\n"
+               "      effect: stop\n",
+           "plan.yaml:16:13: outages.episodes[1].name: 'icing' is already the name of "
+           "outages.episodes[0]; give each episode its own name"},
+      },
+      PlanError);
+}
+
 TEST(OutageReaderTest, RejectsBadInputWithExactMessages) {
   reader_test::ExpectMessages(BadInputs(), PlanError);
 }

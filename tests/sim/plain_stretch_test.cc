@@ -87,6 +87,18 @@ TEST(PlainStretchTest, HighWindShutdownAgreesWithTheFullLoop) {
   ExpectSameRuns(plan, "and storm control");
 }
 
+// Episodes (icing) that stop the turbine or make records invalid: outage-like
+// state changes at their own steps; parked records counted during them too.
+TEST(PlainStretchTest, EpisodesAgreeWithTheFullLoop) {
+  Plan plan = DemoPlan("plan.yaml");
+  ASSERT_FALSE(plan.episodes.empty());
+  plan.episodes[0].starts_per_month.fill(3.0);  // episodes all year round
+  ExpectSameRuns(plan, "episodes all year");
+  plan.episodes[0].stops_turbine = false;
+  plan.parked_counts_during_outage = true;
+  ExpectSameRuns(plan, "invalidating episodes, parked counts during outages");
+}
+
 // Parked records counted while the turbine is out: those stretches take the
 // full path; the ones around them the shorter one.
 TEST(PlainStretchTest, ParkedCountsDuringOutagesAgreeWithTheFullLoop) {

@@ -82,6 +82,20 @@ struct PlannedOutage {
   bool daq = false;     // the data acquisition is down
 };
 
+// Episodes such as icing that remove whole stretches of records: they start
+// at random with a rate that depends on the month and last a drawn time;
+// while one lasts the turbine is stopped, its records are invalid (iced
+// sensors), or both. Episodes of one kind do not overlap.
+struct EpisodeModel {
+  std::string name;
+  // Mean number of episodes starting in each month (Jan..Dec), >= 0.
+  std::array<double, 12> starts_per_month{};
+  double mean_h = 24.0;      // mean duration, hours
+  DurationLaw duration_law;  // law of durations, mean mean_h
+  bool stops_turbine = true;
+  bool invalidates_records = true;
+};
+
 // Hours of the day [from_hour, to_hour), may wrap past midnight (22 -> 6).
 struct HourWindow {
   int from_hour = 0;  // 0..23
@@ -149,6 +163,7 @@ struct Plan {
   OutageModel turbine_outages;
   OutageModel daq_outages;  // data acquisition
   std::vector<PlannedOutage> planned_outages;
+  std::vector<EpisodeModel> episodes;  // icing and the like (outages.episodes)
   std::vector<CurtailmentRule> curtailment;
   CrewSchedule crew;
   std::vector<ManualTest> manual_tests;

@@ -11,8 +11,13 @@ namespace planner {
 namespace io {
 namespace {
 
-const std::vector<std::string> kOutagesFields = {"turbine", "data_acquisition", "planned",
-                                                 "parked_counts_during_outage"};
+const std::vector<std::string> kOutagesFields = {
+    "turbine", "data_acquisition", "planned", "episodes", "parked_counts_during_outage"};
+const std::vector<std::string> kEpisodeFields = {"name", "starts_per_month", "mean_h",
+                                                 "durations", "effect"};
+const Limits kEpisodeMeanLimits = Interval("(]", 0, 24 * 60, "h");
+// A month holds about 30 days; more starts than days in a month are a slip.
+const Limits kStartsPerMonthLimits = Interval("[]", 0, 30);
 const std::vector<std::string> kOutageModelFields = {
     "mtbf_h", "mttr_h", "up_times", "repair_times", "repair_month_factors"};
 const std::vector<std::string> kLawFields = {"law", "k", "scale_h", "sigma", "mu"};
@@ -22,6 +27,7 @@ const std::vector<std::string> kLognormalFields = {"law", "sigma", "mu"};
 const std::vector<std::string> kPlannedFields = {"name", "from", "to", "turbine",
                                                  "data_acquisition"};
 
+constexpr size_t kMaxEpisodes = 8;
 const Limits kUpMeanLimits = Interval("[]", 0, 1e6, "h");
 const Limits kRepairMeanLimits = Interval("[]", 0, 1e5, "h");
 
@@ -154,6 +160,43 @@ PlannedOutage ReadPlannedOutage(const Field& f, NameSet* names) {
   return outage;
 }
 
+void ReadEffect(const Field& f, EpisodeModel* e) {
+  const std::string effect = AsText(f);
+  e->stops_turbine = effect == "stop" || effect == "both";
+  e->invalidates_records = effect == "invalid" || effect == "both";
+  if (e->stops_turbine || e->invalidates_records) return;
+  Fail(f, Describe(f.node) + " is not an effect; valid: stop (the turbine stops), "
+                             "invalid (its records do not count), both");
+}
+
+EpisodeModel ReadEpisode(const Field& f, NameSet* names) {
+  const FieldMap m(f, kEpisodeFields);
+  EpisodeModel e;
+  e.name = ReadName(m, "name");
+  names->Add(m.Get("name"), e.name);
+  const Field starts = m.Get("starts_per_month");
+  const std::vector<Field> items = AsList(starts);
+  if (items.size() != 12) {
+    Fail(starts, std::to_string(items.size()) +
+                     " values given; expected 12 (January to December)");
+  }
+  double total = 0.0;
+  for (int i = 0; i < 12; ++i) {
+    e.starts_per_month[i] = AsNumber(items[i], kStartsPerMonthLimits);
+    total += e.starts_per_month[i];
+  }
+  if (total == 0.0) {
+    Fail(starts, "is 0 in every month, so the episode never happens; give the mean "
+                 "number of starts in the months it happens, or remove the episode");
+  }
+  LawInput law;
+  if (const auto d = m.Find("durations")) law = ReadLaw(*d);
+  e.duration_law = law.law;
+  e.mean_h = ReadMean(m, "mean_h", "durations", law, kEpisodeMeanLimits, "duration");
+  ReadEffect(m.Get("effect"), &e);
+  return e;
+}
+
 }  // namespace
 
 void ReadOutages(const Field& f, Plan* plan) {
@@ -169,6 +212,18 @@ void ReadOutages(const Field& f, Plan* plan) {
     for (const Field& item : items) {
       plan->planned_outages.push_back(ReadPlannedOutage(item, &names));
     }
+  }
+  if (const auto p = m.Find("episodes")) {
+    const std::vector<Field> items = AsList(*p);
+    if (items.empty()) {
+      Fail(*p, "is empty; give at least one episode, or leave the field out");
+    }
+    if (items.size() > kMaxEpisodes) {
+      Fail(*p, std::to_string(items.size()) + " episodes given; at most " +
+                   std::to_string(kMaxEpisodes) + " are allowed");
+    }
+    NameSet names("episode");
+    for (const Field& item : items) plan->episodes.push_back(ReadEpisode(item, &names));
   }
   plan->parked_counts_during_outage = ReadBool(m, "parked_counts_during_outage", false);
 }

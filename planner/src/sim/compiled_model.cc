@@ -181,6 +181,7 @@ CompiledModel CompileModel(const Plan& plan, double relaxed_share) {
                                          : RecordSpectrum().length_scale_m);
   m.turbine_outages = MakeRenewalLaw(plan.turbine_outages);
   m.daq_outages = MakeRenewalLaw(plan.daq_outages);
+  for (const EpisodeModel& e : plan.episodes) m.episodes.push_back(MakeEpisodeLaw(e));
   m.parked_counts_during_outage = plan.parked_counts_during_outage;
   m.quality_reject = plan.quality_reject_fraction;
   m.keep_threshold = ProbabilityThreshold(m.sector_chain.keep_probability);

@@ -13,6 +13,7 @@
 #include "planner/plan.h"
 #include "planner/turbulence.h"
 #include "sim/bin_lookup.h"
+#include "sim/episode_process.h"
 #include "sim/high_wind_shutdown.h"
 #include "sim/renewal_process.h"
 #include "sim/weather_process.h"
@@ -158,6 +159,7 @@ struct CompiledModel {
   ShutdownTables shutdown;  // stops and restarts in high wind, storm control
   RenewalLaw turbine_outages, daq_outages;
   std::vector<StepInterval> planned_turbine, planned_daq;  // sorted, merged
+  std::vector<EpisodeLaw> episodes;                        // icing and the like
   bool parked_counts_during_outage = false;
   double quality_reject = 0;
   // The sector-keeping and quality-rejection probabilities as thresholds on

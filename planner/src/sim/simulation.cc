@@ -22,6 +22,7 @@ constexpr uint64_t kYearSalt = 0x796561722D666163ULL;
 constexpr uint64_t kTiSalt = 0x74692D6C6174656EULL;
 constexpr uint64_t kReplaySalt = 0x7265706C61792D62ULL;
 constexpr uint64_t kShutdownSalt = 0x6869676877696E64ULL;
+constexpr uint64_t kEpisodeSalt = 0x6570697365646531ULL;  // + the episode's index
 
 // Normal score z with Phi(z) = F(x) for a unit-scale Weibull of shape k:
 // the inverse of SpeedTransform (Boost.Math's normal quantile).
@@ -71,7 +72,7 @@ struct RunState {
   double direction_u = 0;  // position within the sector, [0, 1)
   // Cached for the current direction.
   bool sector_ok = false;
-  bool recordable = false;       // daq_up && sector_ok
+  bool recordable = false;       // daq_up && sector_ok && !records_void
   uint32_t direction_rules = 0;  // curtailment rules whose direction holds
   double x_ti = 0;  // latent TI normal at step ti_step
   int64_t ti_step = 0;
@@ -79,6 +80,7 @@ struct RunState {
   bool producing = false;  // in the previous step
   // Outage states, re-evaluated only at the steps where one may change.
   bool turbine_up = true, daq_up = true;
+  bool records_void = false;  // an episode (icing) makes records invalid
   int64_t next_outage_step = 0;
   // Set once per hour.
   uint32_t hour_rules = 0;  // curtailment rules in force this month and hour
@@ -128,7 +130,13 @@ class RunLoop {
         planned_daq_(m.planned_daq),
         shutdown_(m.shutdown, MakeRunEngine(seed ^ kShutdownSalt, run)),
         last_test_(m.manual_tests.size(), INT64_MIN / 2),
-        out_(out) {}
+        out_(out) {
+    for (size_t e = 0; e < m.episodes.size(); ++e) {
+      episodes_.emplace_back(m.episodes[e], MakeRunEngine(seed ^ (kEpisodeSalt + e), run),
+                             m.day_month.data(),
+                             static_cast<int64_t>(m.day_month.size()));
+    }
+  }
 
   // state: continue a running campaign (null = from the plan's start).
   void Run(const CampaignState* state);
@@ -203,6 +211,7 @@ class RunLoop {
   RenewalProcess turbine_, daq_;
   OutageWindows planned_turbine_, planned_daq_;
   HighWindShutdown shutdown_;
+  std::vector<EpisodeProcess> episodes_;
   std::vector<int64_t> last_test_;  // per manual test: step it was last done
   ZigguratNormal normal_;
   RunResult* out_;
@@ -333,7 +342,7 @@ inline void RunLoop::SetDirection(int sector, double direction_u, int64_t step,
   s.sector = sector;
   s.direction_u = direction_u;
   s.sector_ok = InSpans(m_.sector_valid_spans[s.sector], s.direction_u);
-  s.recordable = s.daq_up && s.sector_ok;
+  s.recordable = s.daq_up && s.sector_ok && !s.records_void;
   if (!m_.curtailment.empty())
     s.direction_rules = DirectionRules(s.sector, s.direction_u);
 }
@@ -350,10 +359,18 @@ inline void RunLoop::SetDirection(int sector, double direction_u, int64_t step,
   const bool daq_planned_out = planned_daq_.InAt(step);
   s.turbine_up = turbine_random_up && !turbine_planned_out;
   s.daq_up = daq_random_up && !daq_planned_out;
-  s.recordable = s.daq_up && s.sector_ok;
   s.next_outage_step =
       std::min({turbine_.NextChangeStep(), daq_.NextChangeStep(),
                 planned_turbine_.NextChangeStep(), planned_daq_.NextChangeStep()});
+  s.records_void = false;
+  for (EpisodeProcess& e : episodes_) {
+    if (e.InAt(step)) {
+      s.turbine_up = s.turbine_up && !e.law().stops_turbine;
+      s.records_void = s.records_void || e.law().invalidates_records;
+    }
+    s.next_outage_step = std::min(s.next_outage_step, e.NextChangeStep());
+  }
+  s.recordable = s.daq_up && s.sector_ok && !s.records_void;
 }
 
 // The shutdown unit's answer for a record at or above its attention speed or
@@ -497,7 +514,7 @@ void RunLoop::Trace(int64_t step, double speed_ms, int state, bool quality_ok,
   t.daq_up = s.daq_up;
   t.sector_ok = s.sector_ok;
   t.quality_ok = quality_ok;
-  t.valid = s.daq_up && s.sector_ok && quality_ok;
+  t.valid = s.recordable && quality_ok;
   t.manual_test = manual_test;
   t.cell = cell;
   t.event_type = traced_event_type_;
