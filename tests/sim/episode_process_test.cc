@@ -5,6 +5,7 @@
 
 #include <array>
 #include <cmath>
+#include <utility>
 #include <vector>
 
 #include "planner/calendar.h"
@@ -53,6 +54,27 @@ Walk WalkEpisodes(const EpisodeModel& model, const std::vector<uint8_t>& months,
   return w;
 }
 
+// The same start rate in every month, durations of the given law and mean.
+EpisodeModel AllYear(double starts_per_month, double mean_h, DurationLaw::Kind kind,
+                     double shape) {
+  EpisodeModel e;
+  e.starts_per_month.fill(starts_per_month);
+  e.mean_h = mean_h;
+  e.duration_law.kind = kind;
+  e.duration_law.shape = shape;
+  return e;
+}
+
+// Sample mean and its standard error.
+std::pair<double, double> MeanAndSe(const std::vector<double>& x) {
+  double sum = 0, ss = 0;
+  for (double v : x) sum += v;
+  const double n = static_cast<double>(x.size());
+  const double mean = sum / n;
+  for (double v : x) ss += (v - mean) * (v - mean);
+  return {mean, std::sqrt(ss / (n - 1) / n)};
+}
+
 // The rate of a Poisson process estimated as starts / exposure (the free
 // time, since no episode starts during one) must match the plan's rate in
 // every month within 4 standard errors (sqrt(count) / exposure); months
@@ -83,28 +105,16 @@ TEST(EpisodeProcessTest, StartsFollowTheMonthlyRateOverTheFreeTime) {
 // reliability-engineering textbooks, from memory). Tolerance: 4 standard
 // errors from 30 batches of 10 years.
 TEST(EpisodeProcessTest, LongRunShareFollowsTheRenewalRewardTheorem) {
-  EpisodeModel e;
-  e.starts_per_month.fill(2.0);
-  e.mean_h = 36;
-  e.duration_law.kind = DurationLaw::Kind::kLognormal;
-  e.duration_law.shape = 0.9;
+  const EpisodeModel e = AllYear(2.0, 36, DurationLaw::Kind::kLognormal, 0.9);
   const std::vector<uint8_t> year = CyclicMonths(10);
   std::vector<double> shares;
-  double sum = 0;
   for (uint64_t batch = 0; batch < 30; ++batch) {
     const Walk w = WalkEpisodes(e, year, 100 + batch);
-    const double total = w.episode_steps + [&] {
-      double f = 0;
-      for (double x : w.free_steps) f += x;
-      return f;
-    }();
-    shares.push_back(w.episode_steps / total);
-    sum += shares.back();
+    double free = 0;
+    for (double x : w.free_steps) free += x;
+    shares.push_back(w.episode_steps / (w.episode_steps + free));
   }
-  const double mean = sum / shares.size();
-  double ss = 0;
-  for (double x : shares) ss += (x - mean) * (x - mean);
-  const double se = std::sqrt(ss / (shares.size() - 1) / shares.size());
+  const auto [mean, se] = MeanAndSe(shares);
   // Rate per step: 2 per month of 365/12 days on average, as the calendar.
   const double rate_per_h = 2.0 * 12.0 / (365.0 * 24.0);
   const double expected = 36.0 / (1.0 / rate_per_h + 36.0);
@@ -117,19 +127,11 @@ TEST(EpisodeProcessTest, LongRunShareFollowsTheRenewalRewardTheorem) {
 // lies inside it, so a length is the drawn time rounded, mean unchanged to
 // within a step).
 TEST(EpisodeProcessTest, DurationsHaveTheGivenMean) {
-  EpisodeModel e;
-  e.starts_per_month.fill(4.0);
-  e.mean_h = 20;
-  e.duration_law.kind = DurationLaw::Kind::kWeibull;
-  e.duration_law.shape = 0.7;
+  const EpisodeModel e = AllYear(4.0, 20, DurationLaw::Kind::kWeibull, 0.7);
   const Walk w = WalkEpisodes(e, CyclicMonths(40), 9);
-  double sum = 0, ss = 0;
-  for (double d : w.durations_steps) sum += d;
-  const double n = static_cast<double>(w.durations_steps.size());
-  const double mean = sum / n;
-  for (double d : w.durations_steps) ss += (d - mean) * (d - mean);
-  ASSERT_GT(n, 1000);
-  EXPECT_NEAR(mean, 20.0 * kStepsPerHour, 4.0 * std::sqrt(ss / (n - 1) / n) + 1.0);
+  ASSERT_GT(w.durations_steps.size(), 1000u);
+  const auto [mean, se] = MeanAndSe(w.durations_steps);
+  EXPECT_NEAR(mean, 20.0 * kStepsPerHour, 4.0 * se + 1.0);
 }
 
 // In a run: while an "invalid" episode lasts, no record counts although the
