@@ -283,6 +283,39 @@ TEST(ForecastReportTextTest, HasLabelledRowsDatesAndCautions) {
   }
 }
 
+// The turbine's high-wind rules and the episodes are named in the header
+// when the plan has them, and the header is as before when it has none.
+TEST(ForecastReportTextTest, HeaderNamesHighWindRulesAndEpisodes) {
+  const std::string plain = Squeeze(FormatForecastText(TestPlan(), TestSummary(), TestContext()));
+  EXPECT_EQ(plain.find("High wind:"), std::string::npos);
+  EXPECT_EQ(plain.find("Episodes:"), std::string::npos);
+
+  Plan plan = TestPlan();
+  plan.turbine.cut_out_ms = 25;
+  plan.turbine.restart_ms = 22;
+  plan.turbine.restart_wait_min = 20;
+  plan.turbine.shutdown_rules = {{30, 28}, {3, 33}};
+  EpisodeModel icing;
+  icing.name = "icing";
+  icing.starts_per_month = {1.5, 1.2, 0.6, 0.1, 0, 0, 0, 0, 0, 0.1, 0.5, 1.2};
+  icing.mean_h = 30;
+  plan.episodes = {icing};
+  const std::string flat = Squeeze(FormatForecastText(plan, TestSummary(), TestContext()));
+  EXPECT_NE(flat.find("High wind: stops at 25 m/s (10-minute mean), 28 m/s (30 s mean), "
+                      "33 m/s (3 s mean); restarts below 22 m/s after 20 min"),
+            std::string::npos)
+      << flat;
+  EXPECT_NE(flat.find("Episodes: icing (stops the turbine, records invalid): 5.2 a year, "
+                      "mean 30 h"),
+            std::string::npos)
+      << flat;
+  plan.turbine.storm_control_from_ms = 22;
+  plan.turbine.cut_out_ms = 30;
+  EXPECT_NE(Squeeze(FormatForecastText(plan, TestSummary(), TestContext()))
+                .find("High wind: storm control (reduced) from 22 m/s; stops at 30 m/s"),
+            std::string::npos);
+}
+
 TEST(ForecastReportTextTest, StandardCautionsSayWhatTheRulesAsk) {
   const std::string all = Squeeze([] {
     std::string s;

@@ -16,6 +16,7 @@
 #include "report/progress_html.h"
 #include "report/report_charts.h"
 #include "report/report_numbers.h"
+#include "report/text_format.h"
 
 namespace planner {
 namespace {
@@ -449,6 +450,10 @@ std::string InputsSection(const HtmlReportInput& in) {
   out += row("Cut-in / cut-out / restart",
              StringPrintf("%g / %g / %g m/s", plan.turbine.cut_in_ms,
                           plan.turbine.cut_out_ms, plan.turbine.restart_ms));
+  if (const std::string h = HighWindText(plan.turbine); !h.empty())
+    out += row("High-wind stops", Esc(h));
+  if (const std::string e = EpisodesText(plan); !e.empty())
+    out += row("Episodes", Esc(e));
   out += row("Start", FormatDate(plan.start) + " (00:00)");
   out += row("Deadline", FormatDate(plan.deadline) +
                              StringPrintf(" (exclusive; %.1f weeks after the start)",

@@ -40,6 +40,42 @@ std::string PlanHeaderLines(const Plan& plan, size_t label_width) {
   out += Wrap(label("Site"), plan.site.name);
   out += Wrap(label("Weather"), WeatherSourceText(plan));
   if (!plan.turbine.name.empty()) out += Wrap(label("Turbine"), plan.turbine.name);
+  if (const std::string h = HighWindText(plan.turbine); !h.empty())
+    out += Wrap(label("High wind"), h);
+  if (const std::string e = EpisodesText(plan); !e.empty())
+    out += Wrap(label("Episodes"), e);
+  return out;
+}
+
+std::string HighWindText(const TurbineSpec& t) {
+  if (t.shutdown_rules.empty() && t.restart_wait_min == 0 &&
+      t.storm_control_from_ms == 0)
+    return "";
+  std::string out;
+  if (t.storm_control_from_ms > 0) {
+    out += StringPrintf("storm control (reduced) from %g m/s; ", t.storm_control_from_ms);
+  }
+  out += StringPrintf("stops at %g m/s (10-minute mean)", t.cut_out_ms);
+  for (const ShortTermShutdown& r : t.shutdown_rules) {
+    out += StringPrintf(", %g m/s (%g s mean)", r.threshold_ms, r.averaging_s);
+  }
+  out += StringPrintf("; restarts below %g m/s", t.restart_ms);
+  if (t.restart_wait_min > 0) out += StringPrintf(" after %g min", t.restart_wait_min);
+  return out;
+}
+
+std::string EpisodesText(const Plan& plan) {
+  std::string out;
+  for (const EpisodeModel& e : plan.episodes) {
+    double per_year = 0;
+    for (double m : e.starts_per_month) per_year += m;
+    const char* effect = e.stops_turbine && e.invalidates_records
+                             ? "stops the turbine, records invalid"
+                         : e.stops_turbine ? "stops the turbine"
+                                           : "records invalid";
+    out += StringPrintf("%s%s (%s): %.1f a year, mean %g h", out.empty() ? "" : "; ",
+                        e.name.c_str(), effect, per_year, e.mean_h);
+  }
   return out;
 }
 

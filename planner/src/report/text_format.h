@@ -32,9 +32,17 @@ std::string CiRangeText(const QuantileEstimate& q);
 std::string Wrap(const std::string& first, const std::string& text);
 // Cuts a label to `width` characters with "..." when longer.
 std::string FitLabel(std::string label, size_t width);
-// The header lines every text report opens with: plan, site, weather and
-// (when named) turbine, labels padded to `label_width` ("  Plan:" + spaces).
+// The header lines every text report opens with: plan, site, weather,
+// (when named) turbine, and when the plan has them its high-wind rules and
+// episodes; labels padded to `label_width` ("  Plan:" + spaces).
 std::string PlanHeaderLines(const Plan& plan, size_t label_width);
+// "stops at 25 m/s (10-minute mean), 28 m/s (30 s mean); restarts below
+// 22 m/s after 20 min", or "" when the turbine has no shutdown rule, restart
+// wait or storm control (cut-out and restart alone).
+std::string HighWindText(const TurbineSpec& t);
+// "icing (stops the turbine, records invalid): 5.3 a year, mean 30 h", one
+// per episode joined by "; ", or "" without episodes.
+std::string EpisodesText(const Plan& plan);
 
 }  // namespace planner
 
