@@ -121,7 +121,8 @@ struct BadPlan {
 const std::string kPlanFields =
     "valid fields: name, site_model, weather, campaign, turbine, valid_sectors_deg, "
     "layout, "
-    "outages, curtailment, manual_tests, quality_reject_fraction, capture_matrix, cost";
+    "outages, curtailment, manual_tests, quality_reject_fraction, capture_matrix, cost, "
+    "planned_changes";
 const std::string kTurbineFields =
     "valid fields: name, rated_power_kw, rotor_diameter_m, hub_height_m, cut_in_ms, "
     "rated_ms, cut_out_ms, restart_ms, restart_wait_min, shutdown_rules, storm_control";

@@ -99,6 +99,32 @@ std::vector<LoggedRecord> Records(const Plan& p) {
   };
 }
 
+// A planned change resets its cells at 00:00 of its date: records before it
+// no longer count for them, records after it do; other cells keep theirs.
+// A change after the as-of date does nothing yet; one between the last record
+// and the as-of date still resets.
+TEST(LoggedCountsTest, PlannedChangeResetsItsCellsAtItsDate) {
+  Plan p = SmallPlan();
+  p.planned_changes = {{"controller update", AddDays(p.start, 1), {0, 4}}};
+  using S = LoggedState;
+  const std::vector<LoggedRecord> records = {
+      Rec(p, 0, S::kProduction, 5, 0.25, 180),            // cell 0, before the change
+      Rec(p, 10, S::kProduction, 5, 0.75, 180),           // cell 1, not reset
+      Rec(p, 20, S::kParked, 2, std::nan(""), 180),       // cell 4, before
+      Rec(p, 24 * 60 + 10, S::kProduction, 5, 0.25, 180),  // cell 0, after
+  };
+  const LoggedCounts c = CountLoggedRecords(p, records, AddDays(p.start, 30));
+  EXPECT_EQ(c.counts, (std::vector<uint32_t>{1, 1, 0, 0, 0, 0, 0}));
+  EXPECT_EQ(c.counted_records, 4);  // counted when logged, then reset
+
+  const LoggedCounts before = CountLoggedRecords(p, records, AddDays(p.start, 1));
+  EXPECT_EQ(before.counts, (std::vector<uint32_t>{1, 1, 0, 0, 1, 0, 0}));
+
+  p.planned_changes[0].date = AddDays(p.start, 5);  // after the last record
+  const LoggedCounts after = CountLoggedRecords(p, records, AddDays(p.start, 6));
+  EXPECT_EQ(after.counts, (std::vector<uint32_t>{0, 1, 0, 0, 0, 0, 0}));
+}
+
 TEST(LoggedCountsTest, EachRecordGoesWhereThePlanSays) {
   const Plan p = SmallPlan();
   const LoggedCounts c = CountLoggedRecords(p, Records(p), AddDays(p.start, 30));

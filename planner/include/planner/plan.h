@@ -96,6 +96,15 @@ struct EpisodeModel {
   bool invalidates_records = true;
 };
 
+// A planned change that invalidates data (a controller update, a sensor
+// exchange): at 00:00 of `date` the counts of `cells` go back to 0, so that
+// only records from then on count for them.
+struct PlannedChange {
+  std::string name;
+  Date date;
+  std::vector<int> cells;  // indices into CaptureMatrix::cells, ascending
+};
+
 // Hours of the day [from_hour, to_hour), may wrap past midnight (22 -> 6).
 struct HourWindow {
   int from_hour = 0;  // 0..23
@@ -164,6 +173,7 @@ struct Plan {
   OutageModel daq_outages;  // data acquisition
   std::vector<PlannedOutage> planned_outages;
   std::vector<EpisodeModel> episodes;  // icing and the like (outages.episodes)
+  std::vector<PlannedChange> planned_changes;  // sorted by date
   std::vector<CurtailmentRule> curtailment;
   CrewSchedule crew;
   std::vector<ManualTest> manual_tests;

@@ -18,6 +18,7 @@
 #include "io/manual_test_reader.h"
 #include "io/outage_reader.h"
 #include "io/plan_fields.h"
+#include "io/planned_change_reader.h"
 #include "io/turbine_reader.h"
 #include "io/weather_reader.h"
 #include "io/yaml_fields.h"
@@ -43,7 +44,8 @@ const std::vector<std::string> kPlanFields = {"name",
                                               "manual_tests",
                                               "quality_reject_fraction",
                                               "capture_matrix",
-                                              "cost"};
+                                              "cost",
+                                              "planned_changes"};
 const std::vector<std::string> kCostFields = {"weekly", "mobilisation", "currency"};
 const std::vector<std::string> kCampaignFields = {"start", "deadline", "horizon_weeks"};
 
@@ -142,6 +144,8 @@ Plan ParsePlan(const std::string& yaml_text, const std::string& file_name,
   if (const auto f = m.Find("cost")) plan.cost = ReadCost(*f);
   // After curtailment and manual tests, which the matrix refers to.
   plan.matrix = io::ReadCaptureMatrix(m.Get("capture_matrix"), plan);
+  if (const auto f = m.Find("planned_changes"))
+    plan.planned_changes = io::ReadPlannedChanges(*f, plan);
   // Last, so that the plan's own mistakes are reported before the site's.
   ReadSite(m.Get("site_model"), base_dir, &plan);
   if (const auto f = m.Find("weather")) io::ReadWeather(*f, base_dir, &plan);

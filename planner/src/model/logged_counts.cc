@@ -85,6 +85,17 @@ class Tally {
     if (--remaining_ == 0) out_->complete_time_s = record_end_s;
   }
   bool Full() const { return remaining_ <= 0; }
+  // A planned change: its cells start again from 0 (unless the matrix was
+  // complete before it: the campaign was over).
+  void Reset(const PlannedChange& change) {
+    if (Full()) return;
+    for (const int cell : change.cells) {
+      uint32_t& n = out_->counts[static_cast<size_t>(cell)];
+      const Cell& c = m_.cells[static_cast<size_t>(cell)];
+      if (!c.optional && n >= static_cast<uint32_t>(c.required)) ++remaining_;
+      n = 0;
+    }
+  }
 
  private:
   const CaptureMatrix& m_;
@@ -120,7 +131,18 @@ LoggedCounts CountLoggedRecords(const Plan& plan,
   Tally tally(plan.matrix, &out);
   if (tally.Full()) out.complete_time_s = DateTime(plan.start);
   const int64_t start_s = DateTime(plan.start), end_s = DateTime(as_of);
+  // The planned changes before as_of, applied as the records pass them.
+  size_t change = 0;
+  const auto reset_before = [&](int64_t time_s) {
+    for (; change < plan.planned_changes.size() &&
+           DateTime(plan.planned_changes[change].date) <= time_s &&
+           DateTime(plan.planned_changes[change].date) < end_s;
+         ++change) {
+      tally.Reset(plan.planned_changes[change]);
+    }
+  };
   for (const LoggedRecord& r : records) {
+    reset_before(r.time_s);
     if (r.time_s < start_s) {
       ++out.before_start;
       continue;
@@ -174,6 +196,7 @@ LoggedCounts CountLoggedRecords(const Plan& plan,
     if (missing) ++out.missing_values;
     if (cell >= 0) tally.Count(cell, record_end_s), ++out.counted_records;
   }
+  reset_before(end_s - 1);  // changes after the last record, before as_of
   return out;
 }
 

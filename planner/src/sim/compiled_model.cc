@@ -193,6 +193,10 @@ CompiledModel CompileModel(const Plan& plan, double relaxed_share) {
   }
   CompileCalendar(plan, &m);
   CompileOperations(plan, &m);
+  for (const PlannedChange& c : plan.planned_changes) {
+    const int64_t step = DaysBetween(plan.start, c.date) * kStepsPerDay;
+    if (step < m.horizon_steps) m.count_resets.push_back({step, c.cells});
+  }
   return m;
 }
 

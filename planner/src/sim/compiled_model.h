@@ -160,6 +160,12 @@ struct CompiledModel {
   RenewalLaw turbine_outages, daq_outages;
   std::vector<StepInterval> planned_turbine, planned_daq;  // sorted, merged
   std::vector<EpisodeLaw> episodes;                        // icing and the like
+  // Planned changes: at step `step` the counts of `cells` go back to 0.
+  struct CountReset {
+    int64_t step = 0;
+    std::vector<int> cells;
+  };
+  std::vector<CountReset> count_resets;  // by step, inside the horizon
   bool parked_counts_during_outage = false;
   double quality_reject = 0;
   // The sector-keeping and quality-rejection probabilities as thresholds on

@@ -195,6 +195,8 @@ class RunLoop {
   void ReachMark(int cell, int64_t step, RunState& s);
   void Stop(int64_t steps, const RunState& s);
   int64_t NextCheckpoint(int64_t step, int remaining);
+  void ApplyResets(int64_t step, RunState& s);
+  size_t next_reset_ = 0;  // the first planned change not yet applied
 
   // The TI stream's normals, drawn kTiBuffer at a time ahead of use (the same
   // sequence as one at a time; the engine's state then stays out of the loop).
@@ -575,6 +577,9 @@ void RunLoop::Run(const CampaignState* state) {
   const int64_t first_day = state != nullptr ? state->elapsed_days : 0;
   const int64_t step = first_day * kStepsPerDay;
   first_step_ = step;
+  // (Changes before a continued campaign's start are in its logged counts.)
+  while (next_reset_ < m_.count_resets.size() && m_.count_resets[next_reset_].step < step)
+    ++next_reset_;
   s.direction_since = s.outages_since = step;
   if (state != nullptr) ApplyState(*state, step, s, ws);
   ws.sector_scale_ms = m_.sector_scale_ms[s.sector];
@@ -731,6 +736,11 @@ void RunLoop::RunSteps(int64_t first_day, int64_t step, RunState& s, WeatherStat
   if (step >= s.checkpoint) {
     s.checkpoint = NextCheckpoint(step, s.remaining);
     if (s.checkpoint < 0) return false;
+    if (next_reset_ < m_.count_resets.size()) {
+      ApplyResets(step, s);
+      if (next_reset_ < m_.count_resets.size())
+        s.checkpoint = std::min(s.checkpoint, m_.count_resets[next_reset_].step);
+    }
   }
   if (day_step + change->k == step) {
     SetDirection(change->sector, change->direction_u, step, s);
@@ -739,6 +749,26 @@ void RunLoop::RunSteps(int64_t first_day, int64_t step, RunState& s, WeatherStat
   if (step >= s.next_outage_step) UpdateOutages(step, s);
   s.next_event = std::min({s.checkpoint, s.next_outage_step, day_step + change->k});
   return true;
+}
+
+// The planned changes due by `step` (00:00 of their date): the counts of
+// their cells go back to 0, and cells that were full are open again. After
+// the matrix was complete a change undoes nothing: the campaign was over.
+[[gnu::noinline, gnu::cold]] void RunLoop::ApplyResets(int64_t step, RunState& s) {
+  for (; next_reset_ < m_.count_resets.size() && m_.count_resets[next_reset_].step <= step;
+       ++next_reset_) {
+    if (out_->completion_step >= 0) continue;
+    for (const int c : m_.count_resets[next_reset_].cells) {
+      if (counts_[c] >= m_.required[c]) {
+        out_->full_step[c] = -1;
+        s.tests_open += m_.manual_test_cell[c];
+        if (!m_.optional[c]) ++s.remaining;
+      }
+      if (counts_[c] >= m_.relaxed_required[c]) out_->relaxed_full_step[c] = -1;
+      counts_[c] = 0;
+      next_mark_[c] = NextMark(c, 0);
+    }
+  }
 }
 
 // The next step the loop must stop at, or -1 when the run is over. Takes the
