@@ -49,7 +49,7 @@ double ShutdownTables::attention_ms() const {
 
 double ShutdownTables::TripProbability(double speed_ms, double sigma_ms) const {
   if (rules.empty()) return 0.0;
-  const double g = std::clamp((speed_ms - grid_lo_ms) / grid_step_ms, 0.0,
+  const double g = std::clamp((speed_ms - grid_lo_ms) / kGridStepMs, 0.0,
                               static_cast<double>(rules[0].at_speed.size() - 1));
   const size_t i = std::min(static_cast<size_t>(g), rules[0].at_speed.size() - 2);
   const double f = g - static_cast<double>(i);
@@ -74,7 +74,6 @@ ShutdownTables CompileShutdown(const TurbineSpec& t, const TiLaw& ti_law,
   if (t.storm_control_from_ms > 0) s.storm_from_ms = t.storm_control_from_ms;
   if (t.shutdown_rules.empty()) return s;
   s.grid_lo_ms = t.cut_in_ms;
-  s.grid_step_ms = kGridStepMs;
   const int points =
       std::max(2, static_cast<int>(std::ceil((t.cut_out_ms - t.cut_in_ms) / kGridStepMs)) + 1);
   for (const ShortTermShutdown& rule : t.shutdown_rules) {
@@ -114,11 +113,12 @@ bool HighWindShutdown::Next(bool was_stopped, double speed_ms, bool may_run,
     return true;
   }
   if (was_stopped) {
-    if (speed_ms >= t_.restart_ms || ++below_restart_ <= t_.restart_wait_steps) {
-      if (speed_ms >= t_.restart_ms) below_restart_ = 0;
+    if (speed_ms >= t_.restart_ms) {
+      below_restart_ = 0;
       return true;
     }
-    below_restart_ = 0;
+    if (++below_restart_ <= t_.restart_wait_steps) return true;
+    below_restart_ = 0;  // restarts
     return false;
   }
   if (!MayTrip(was_stopped, speed_ms, may_run) || !t_.MayTripAt(speed_ms, log_ti))

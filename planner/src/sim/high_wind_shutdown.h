@@ -31,7 +31,7 @@ class TiLaw;
 struct ShortTermRuleTable {
   double averaging_s = 3;
   double threshold_ms = 35;
-  std::vector<MovingAverageMoments> at_speed;  // at grid_lo_ms + i x grid_step_ms
+  std::vector<MovingAverageMoments> at_speed;  // at grid_lo_ms + i x kGridStepMs
 };
 
 // The turbine's shutdown behaviour compiled for the run loop.
@@ -45,7 +45,7 @@ struct ShutdownTables {
   // (the expected number of stops left out is below 1e-7 per record).
   double trip_floor_ms = HUGE_VAL;
   std::vector<ShortTermRuleTable> rules;
-  double grid_lo_ms = 0, grid_step_ms = kGridStepMs;
+  double grid_lo_ms = 0;  // the speed grid: grid_lo_ms + i x kGridStepMs
   // Per grid speed: the lowest ln TI at which the trip probability reaches
   // kTripNegligible there and at the next grid speed (the probability grows
   // with sigma and, below the thresholds, with the speed), +infinity if none.
