@@ -17,6 +17,7 @@
 #include "io/met_csv_reader.h"
 #include "io/reader_test_util.h"
 #include "io/records_csv_reader.h"
+#include "io/sqlite_db.h"
 #include "planner/calendar.h"
 #include "planner/error.h"
 
@@ -285,6 +286,50 @@ TEST_F(CampaignLogBatchTest, ProcessesCreatingOneLogAtOnceAllSucceed) {
   }
   CampaignLog log(path_, false);
   EXPECT_EQ(log.RecordCount(), 2000);
+}
+
+}  // namespace
+}  // namespace planner
+
+namespace planner {
+namespace {
+
+// A log written before the load-channel column (schema version 1) is brought
+// to version 2 when opened: its records are kept, read back with every group
+// recording, and new records may carry groups down.
+TEST_F(CampaignLogTest, VersionOneLogGainsTheChannelColumnAndKeepsItsRecords) {
+  {
+    CampaignLog log(path_, true);
+    Add(log, Csv(0, 20), "a.csv");
+  }
+  {
+    SqliteDb db(path_, false);
+    db.Exec(
+        "ALTER TABLE records DROP COLUMN channels_down;"
+        "UPDATE meta SET value = '1' WHERE key = 'schema_version';");
+  }
+  const std::vector<LoggedRow> before = Rows(Csv(0, 20), "a.csv");
+  {
+    CampaignLog log(path_, false);
+    const std::vector<LoggedRecord> records = log.Records();
+    ASSERT_EQ(records.size(), 20u);
+    for (size_t i = 0; i < records.size(); ++i) {
+      EXPECT_EQ(records[i].time_s, before[i].record.time_s);
+      EXPECT_EQ(records[i].speed_ms, before[i].record.speed_ms);
+      EXPECT_EQ(records[i].channels_down, "");
+    }
+    std::string csv = Csv(20, 2);
+    csv.replace(csv.find("quality\n"), 8, "quality,channels_down\n");
+    for (size_t at = csv.find(",ok\n"); at != std::string::npos;
+         at = csv.find(",ok\n", at + 1))
+      csv.replace(at, 4, ",ok,blade;tower\n");
+    Add(log, csv, "b.csv");
+    EXPECT_EQ(log.Records().back().channels_down, "blade;tower");
+  }
+  SqliteDb db(path_, false);
+  SqliteStatement version(db, "SELECT value FROM meta WHERE key = 'schema_version'");
+  ASSERT_TRUE(version.Step());
+  EXPECT_EQ(version.Text(0), std::to_string(kCampaignLogSchemaVersion));
 }
 
 }  // namespace

@@ -272,11 +272,11 @@ std::vector<BadMatrix> BadMatrices() {
            "from 0 to 12 %"},
       {"override sets nothing", WithOverride("{wind_ms: [4, 5]}"),
        "plan.yaml:11:9: " + kOverride +
-           ": sets nothing; give min_records, optional or both"},
+           ": sets nothing; give min_records, optional, channels or several of them"},
       {"override unknown field", WithOverride("{wind_ms: [4, 5], required: 3}"),
        "plan.yaml:11:27: " + kOverride +
            ".required: unknown field; valid fields: wind_ms, "
-           "ti_pct, min_records, optional"},
+           "ti_pct, min_records, optional, channels"},
       {"override optional not boolean",
        WithOverride("{wind_ms: [4, 5], optional: maybe}"),
        "plan.yaml:11:37: " + kOverride +

@@ -144,7 +144,7 @@ std::vector<BadInput> BadInputs() {
       {"unknown key", Replace(b, "      min_records: 8", "      required: 8"),
        "plan.yaml:14:7: " + kEvent0 +
            ".required: unknown field; valid fields: event, wind_ms, min_records, "
-           "optional"},
+           "optional, channels"},
       {"no event cells",
        Replace(b,
                "  events:\n    - event: start_up\n      wind_ms: [3, 5]\n      "

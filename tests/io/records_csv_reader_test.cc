@@ -184,3 +184,32 @@ TEST(RecordsCsvReaderTest, LinesEndingInCarriageReturnOnlyAreNamed) {
 
 }  // namespace
 }  // namespace planner
+
+namespace planner {
+namespace {
+
+// The optional channels_down column: group names separated by ';' or spaces,
+// kept joined by ';'; empty or none for every group recording; anything else
+// is named with its row and column.
+TEST(RecordsCsvReaderTest, ReadsLoadChannelGroupsDown) {
+  const std::string text =
+      "timestamp,speed_ms,speed_std_ms,direction_deg,state,quality,channels_down\n"
+      "2027-03-01 00:00,7.4,0.81,236,production,ok,blade; tower\n"
+      "2027-03-01 00:10,7.9,0.9,230,production,ok,none\n"
+      "2027-03-01 00:20,7.9,0.9,230,production,ok,\n";
+  const RecordsFile f = Read(text);
+  ASSERT_EQ(f.rows.size(), 3u);
+  EXPECT_EQ(f.channels_down_column, "channels_down");
+  EXPECT_EQ(f.rows[0].record.channels_down, "blade;tower");
+  EXPECT_EQ(f.rows[1].record.channels_down, "");
+  EXPECT_EQ(f.rows[2].record.channels_down, "");
+  EXPECT_EQ(Read(kGood).channels_down_column, "");
+  EXPECT_EQ(ErrorOf([&] { Read(Replace(text, "blade; tower", "blade/tower")); }),
+            "log.csv:2:7: column 'channels_down': 'blade/tower' is not a list of "
+            "load-channel groups; valid: empty or none, or names of letters, digits, '_' "
+            "and '-' separated by ';' (groups of the plan's outages.channel_groups)\n"
+            "log.csv: 1 row has problems; nothing was added to the log");
+}
+
+}  // namespace
+}  // namespace planner

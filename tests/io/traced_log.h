@@ -36,8 +36,17 @@ inline std::string Number(double x, int decimals) {
   return buf;
 }
 
+// The names of the load-channel groups down, joined by ';'.
+inline std::string ChannelsDown(const planner::Plan& plan, uint32_t mask) {
+  std::string out;
+  for (size_t g = 0; g < plan.channel_groups.size(); ++g) {
+    if (mask & (1u << g)) out += (out.empty() ? "" : ";") + plan.channel_groups[g].name;
+  }
+  return out;
+}
+
 inline const char* const kTracedLogHeader =
-    "timestamp,speed_ms,speed_std_ms,direction_deg,state,quality,event\n";
+    "timestamp,speed_ms,speed_std_ms,direction_deg,state,quality,event,channels_down\n";
 
 // One CSV line per record with the data acquisition up (records while it is
 // down are absent from a real log).
@@ -59,7 +68,8 @@ inline std::string TracedLogCsv(const planner::Plan& plan,
            Number(r.speed_ms, o.decimals) + "," +
            Number(std_ms, o.decimals + (o.decimals >= 0)) + "," +
            Number(r.direction_deg, o.decimals < 0 ? -1 : 1) + "," + state + "," +
-           (r.quality_ok ? "ok" : "rejected") + "," + event + "\n";
+           (r.quality_ok ? "ok" : "rejected") + "," + event + "," +
+           ChannelsDown(plan, r.channels_down) + "\n";
   }
   return out;
 }

@@ -56,6 +56,7 @@ void ExpectSameRuns(const Plan& plan, const std::string& what,
       EXPECT_EQ(fast.simulated_steps, full.simulated_steps) << where;
       EXPECT_EQ(fast.turbine_up_steps, full.turbine_up_steps) << where;
       EXPECT_EQ(fast.daq_up_steps, full.daq_up_steps) << where;
+      EXPECT_EQ(fast.channels_up_steps, full.channels_up_steps) << where;
       EXPECT_EQ(fast.valid_sector_steps, full.valid_sector_steps) << where;
       EXPECT_EQ(fast.curtailed_steps, full.curtailed_steps) << where;
       // The same sums in the same order: equal to the last bit.

@@ -32,7 +32,10 @@ namespace planner {
 class SqliteDb;
 
 // Version of the log schema this program writes and reads.
-inline constexpr int kCampaignLogSchemaVersion = 1;
+// 2: records.channels_down (load-channel groups down). A version-1 log is
+// brought to version 2 when it is opened (the column added, empty: every
+// group recording), which loses nothing.
+inline constexpr int kCampaignLogSchemaVersion = 2;
 
 // A record read from a file, with the line it came from (for messages).
 struct LoggedRow {
@@ -130,6 +133,7 @@ class CampaignLog {
 
  private:
   void CheckOrCreateSchema(bool create, const std::string& plan_name);
+  std::string MigrateFromVersion1();
   IngestReport IngestRows(const std::string& file, const std::vector<LoggedRow>& rows,
                           const IngestOptions& options);
 

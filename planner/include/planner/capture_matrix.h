@@ -8,6 +8,7 @@
 #ifndef PLANNER_CAPTURE_MATRIX_H_
 #define PLANNER_CAPTURE_MATRIX_H_
 
+#include <cstdint>
 #include <string>
 #include <vector>
 
@@ -26,6 +27,9 @@ inline constexpr int kOperatingStateCount = 3;
 // "production" / "parked" / "reduced".
 const char* OperatingStateName(OperatingState s);
 
+// Cell::channels when a cell needs every load-channel group of the plan.
+inline constexpr uint32_t kAllChannels = 0xFFFFFFFFu;
+
 struct Bin {
   double lo = 0.0;  // inclusive
   double hi = 0.0;  // exclusive
@@ -42,6 +46,9 @@ struct Cell {
   Bin ti_pct;              // TI bin in percent
   int required = 0;        // minimum count of valid records, >= 1
   bool optional = false;   // reported, but does not hold up completion
+  // Load-channel groups the cell needs (bit g: Plan::channel_groups[g]); a
+  // record counts only while they are all up. Default: every group.
+  uint32_t channels = kAllChannels;
 };
 
 // Cells of one state as a grid. cell_index[w * ti_bins.size() + t] is the

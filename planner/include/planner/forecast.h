@@ -79,6 +79,7 @@ struct ForecastSummary {
   // Shares of simulated time (diagnostics that explain the answer).
   double turbine_availability = 0;
   double daq_availability = 0;
+  double channels_availability = 0;  // every load-channel group up (1 if none)
   double valid_sector_share = 0;
   double curtailed_share = 0;  // time with a curtailment rule in force
   double mean_speed_ms = 0;    // mean simulated wind speed at hub height

@@ -65,6 +65,9 @@ struct LoggedRecord {
   LoggedState state = LoggedState::kParked;
   bool quality_ok = true;  // passed the data-quality checks
   std::string event;       // transient event in this record, "" = none
+  // Load-channel groups whose channels were not recording, names joined by
+  // ";" ("" = all recording; the plan's outages.channel_groups).
+  std::string channels_down;
 };
 
 // What the log holds for a plan up to an as-of date.
@@ -81,6 +84,11 @@ struct LoggedCounts {
   int64_t counted_records = 0;   // counted for a record cell
   int64_t counted_events = 0;    // counted for an event cell
   int64_t unknown_events = 0;    // events that name no event type of the plan
+  // Records with a load-channel group down that every cell needs (counted
+  // for no cell), and records naming a group the plan does not define (the
+  // name is ignored).
+  int64_t channels_down = 0;
+  int64_t unknown_channel_groups = 0;
   // First and last used record (start of its period), if any.
   std::optional<int64_t> first_time_s, last_time_s;
   // End of the record with which every required cell had reached its

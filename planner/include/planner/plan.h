@@ -96,6 +96,28 @@ struct EpisodeModel {
   bool invalidates_records = true;
 };
 
+// After a repair, a load-channel group's records count again only once it is
+// recalibrated, which needs `hours` in a row with the 10-minute mean wind
+// below below_ms and, if crew is true, the crew on site (e.g. a strain-gauge
+// zero on a parked rotor in light wind).
+struct Recalibration {
+  bool needed = false;
+  double hours = 2.0;
+  double below_ms = 6.0;
+  bool crew = true;
+};
+
+// A group of load channels (blade, tower, drive train ...) of the
+// measurement system, with its own failures and repairs (outages.channel_groups).
+struct ChannelGroup {
+  std::string name;
+  OutageModel failures;
+  Recalibration recalibration;
+};
+
+// At most this many load-channel groups (bits of Cell::channels).
+inline constexpr int kMaxChannelGroups = 16;
+
 // A planned change that invalidates data (a controller update, a sensor
 // exchange): at 00:00 of `date` the counts of `cells` go back to 0, so that
 // only records from then on count for them.
@@ -173,6 +195,7 @@ struct Plan {
   OutageModel daq_outages;  // data acquisition
   std::vector<PlannedOutage> planned_outages;
   std::vector<EpisodeModel> episodes;  // icing and the like (outages.episodes)
+  std::vector<ChannelGroup> channel_groups;  // outages.channel_groups
   std::vector<PlannedChange> planned_changes;  // sorted by date
   std::vector<CurtailmentRule> curtailment;
   CrewSchedule crew;

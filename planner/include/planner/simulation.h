@@ -47,6 +47,7 @@ struct RunResult {
   // Diagnostics over the simulated steps (for tests and reports).
   int64_t turbine_up_steps = 0;
   int64_t daq_up_steps = 0;
+  int64_t channels_up_steps = 0;  // every load-channel group up (all if none)
   int64_t valid_sector_steps = 0;
   int64_t curtailed_steps = 0;  // steps with a curtailment rule in force
   double speed_sum_ms = 0;      // sum of the simulated mean wind speeds
@@ -61,6 +62,7 @@ struct TracedRecord {
   double ti = 0;             // TI (fraction) where the simulation drew it, else NaN
   OperatingState state = OperatingState::kParked;
   bool turbine_up = true, daq_up = true, sector_ok = true;
+  uint32_t channels_down = 0;  // load-channel groups down (bit g: group g)
   bool quality_ok = true;    // passed the data-quality check
   bool valid = true;         // acquisition up, valid sector, quality passed
   bool manual_test = false;  // a manual test was done in this record

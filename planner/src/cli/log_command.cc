@@ -140,6 +140,9 @@ CommandAction AddLogCommand(CLI::App& app) {
   add->add_option("--event", o.event_column,
                   "Event column (optional): start_up, normal_stop or a manual test")
       ->type_name("NAME");
+  add->add_option("--channels-down", o.channels_down_column,
+                  "Load-channel groups down column (optional): names separated by ';'")
+      ->type_name("NAME");
   add->add_option("--stamp", args->stamp,
                   "Timestamps mark the start or the end of the 10-minute period")
       ->type_name("start|end")

@@ -40,7 +40,8 @@ CREATE TABLE records (
   quality_ok    INTEGER NOT NULL CHECK (quality_ok IN (0, 1)),
   event         TEXT,
   ingest_id     INTEGER NOT NULL REFERENCES ingests (id),
-  source_line   INTEGER NOT NULL
+  source_line   INTEGER NOT NULL,
+  channels_down TEXT
 );
 CREATE TABLE progress_runs (
   id               INTEGER PRIMARY KEY,
@@ -91,6 +92,9 @@ std::string Difference(const LoggedRecord& logged, const LoggedRecord& here) {
   if (logged.event != here.event)
     add("event", logged.event.empty() ? "none" : logged.event,
         here.event.empty() ? "none" : here.event);
+  if (logged.channels_down != here.channels_down)
+    add("channels_down", logged.channels_down.empty() ? "none" : logged.channels_down,
+        here.channels_down.empty() ? "none" : here.channels_down);
   return out;
 }
 
@@ -103,11 +107,13 @@ LoggedRecord ReadRecord(const SqliteStatement& s, int first_column) {
   r.state = ParseLoggedState(s.Text(first_column + 4)).value_or(LoggedState::kParked);
   r.quality_ok = s.Int(first_column + 5) != 0;
   r.event = s.Text(first_column + 6);
+  r.channels_down = s.Text(first_column + 7);
   return r;
 }
 
 const char kRecordColumns[] =
-    "time_s, speed_ms, speed_std_ms, direction_deg, state, quality_ok, event";
+    "time_s, speed_ms, speed_std_ms, direction_deg, state, quality_ok, event, "
+    "channels_down";
 
 }  // namespace
 
@@ -183,12 +189,28 @@ void CampaignLog::CheckOrCreateSchema(bool create, const std::string& plan_name)
                      ": is not a fillcast campaign log (expected an SQLite file with "
                      "a meta table naming the format); choose another file with --log");
   }
+  if (version == "1") version = MigrateFromVersion1();
   if (version != std::to_string(kCampaignLogSchemaVersion)) {
     throw InputError(path_ + ": campaign log schema version '" + version +
                      "' is not one this fillcast reads (version " +
                      std::to_string(kCampaignLogSchemaVersion) +
                      "); use the fillcast that wrote it");
   }
+}
+
+// Version 1 had no records.channels_down: add it (empty: every group was
+// recording), under the write lock, where another process may have done it
+// first. Returns the version after.
+std::string CampaignLog::MigrateFromVersion1() {
+  SqliteTransaction t(*db_);
+  SqliteStatement get(*db_, "SELECT value FROM meta WHERE key = 'schema_version'");
+  const std::string version = get.Step() ? get.Text(0) : "";
+  if (version != "1") return version;
+  db_->Exec(
+      "ALTER TABLE records ADD COLUMN channels_down TEXT;"
+      "UPDATE meta SET value = '2' WHERE key = 'schema_version';");
+  t.Commit();
+  return "2";
 }
 
 IngestReport CampaignLog::Ingest(const std::string& file,
@@ -233,7 +255,7 @@ IngestReport CampaignLog::IngestRows(const std::string& file,
                                  "WHERE time_s = ?");
   SqliteStatement insert(*db_, std::string("INSERT INTO records (") + kRecordColumns +
                                    ", ingest_id, source_line) VALUES "
-                                   "(?, ?, ?, ?, ?, ?, ?, ?, ?)");
+                                   "(?, ?, ?, ?, ?, ?, ?, ?, ?, ?)");
   int64_t done = 0;
   for (const LoggedRow& row : rows) {
     const LoggedRecord& r = row.record;
@@ -249,7 +271,7 @@ IngestReport CampaignLog::IngestRows(const std::string& file,
         if (report.conflicts.size() < kMaxListedConflicts) {
           report.conflicts.push_back(IngestConflict{
               file + ":" + std::to_string(row.line), r.time_s,
-              find.Text(7) + ":" + std::to_string(find.Int(8)), difference});
+              find.Text(8) + ":" + std::to_string(find.Int(9)), difference});
         }
       }
     } else {
@@ -262,8 +284,11 @@ IngestReport CampaignLog::IngestRows(const std::string& file,
           .Bind(6, static_cast<int64_t>(r.quality_ok ? 1 : 0))
           .BindOrNull(
               7, r.event.empty() ? std::nullopt : std::optional<std::string>(r.event))
-          .Bind(8, ingest())
-          .Bind(9, row.line)
+          .BindOrNull(8, r.channels_down.empty()
+                             ? std::nullopt
+                             : std::optional<std::string>(r.channels_down))
+          .Bind(9, ingest())
+          .Bind(10, row.line)
           .Step();
       ++report.added;
     }

@@ -7,6 +7,7 @@
 #include <vector>
 
 #include "io/event_cell_reader.h"
+#include "io/plan_fields.h"
 
 namespace planner {
 namespace io {
@@ -15,10 +16,10 @@ namespace {
 const std::vector<std::string> kMatrixFields = {"production", "parked", "reduced",
                                                 "events"};
 const std::vector<std::string> kStateFields = {"wind_bins_ms", "ti_bins_pct",
-                                               "min_records", "overrides"};
+                                               "min_records", "overrides", "channels"};
 const std::vector<std::string> kRangeFields = {"from", "to", "width"};
 const std::vector<std::string> kOverrideFields = {"wind_ms", "ti_pct", "min_records",
-                                                  "optional"};
+                                                  "optional", "channels"};
 
 constexpr std::size_t kMaxBins = 1000;
 constexpr std::size_t kMaxGridCells = 100000;
@@ -124,10 +125,12 @@ std::vector<Bin> ReadBins(const Field& f, const std::string& unit) {
   return bins;
 }
 
-// Minimum count and optional flag of every grid position (w * ti_count + t).
+// Minimum count, optional flag and channel groups needed of every grid
+// position (w * ti_count + t).
 struct GridTargets {
   std::vector<int> required;
   std::vector<bool> optional;
+  std::vector<uint32_t> channels;
 };
 
 std::size_t TiCount(const StateGrid& grid) {
@@ -168,10 +171,11 @@ std::vector<std::size_t> AllIndices(std::size_t n) {
   return all;
 }
 
-void ApplyOverride(const Field& f, const StateGrid& grid, GridTargets* targets) {
+void ApplyOverride(const Field& f, const StateGrid& grid, const Plan& plan,
+                   GridTargets* targets) {
   const FieldMap m(f, kOverrideFields);
-  if (!m.Has("min_records") && !m.Has("optional")) {
-    Fail(f, "sets nothing; give min_records, optional or both");
+  if (!m.Has("min_records") && !m.Has("optional") && !m.Has("channels")) {
+    Fail(f, "sets nothing; give min_records, optional, channels or several of them");
   }
   std::vector<std::size_t> winds = AllIndices(grid.wind_bins_ms.size());
   if (const auto w = m.Find("wind_ms")) winds = SelectBins(*w, grid.wind_bins_ms, "m/s");
@@ -187,11 +191,14 @@ void ApplyOverride(const Field& f, const StateGrid& grid, GridTargets* targets) 
   const int required =
       records ? AsWholeNumber(*records, Interval("[]", 0, kMaxRecords)) : 0;
   const bool is_optional = optional ? AsBool(*optional) : false;
+  const std::optional<Field> channels = m.Find("channels");
+  const uint32_t needs = channels ? ReadChannelNeeds(*channels, plan) : kAllChannels;
   for (std::size_t w : winds) {
     for (std::size_t t : tis) {
       const std::size_t position = w * TiCount(grid) + t;
       if (records) targets->required[position] = required;
       if (optional) targets->optional[position] = is_optional;
+      if (channels) targets->channels[position] = needs;
     }
   }
 }
@@ -229,6 +236,7 @@ void AppendCells(StateGrid grid, const GridTargets& targets, CaptureMatrix* matr
       if (cell.ti_binned) cell.ti_pct = grid.ti_bins_pct[t];
       cell.required = targets.required[position];
       cell.optional = targets.optional[position];
+      cell.channels = targets.channels[position];
       grid.cell_index[position] = static_cast<int>(matrix->cells.size());
       matrix->cells.push_back(cell);
     }
@@ -236,7 +244,7 @@ void AppendCells(StateGrid grid, const GridTargets& targets, CaptureMatrix* matr
   matrix->grids.push_back(std::move(grid));
 }
 
-void ReadState(const Field& f, OperatingState state, const TurbineSpec& turbine,
+void ReadState(const Field& f, OperatingState state, const Plan& plan,
                CaptureMatrix* matrix) {
   const FieldMap m(f, kStateFields);
   StateGrid grid;
@@ -251,13 +259,16 @@ void ReadState(const Field& f, OperatingState state, const TurbineSpec& turbine,
   }
   const int default_records =
       AsWholeNumber(m.Get("min_records"), Interval("[]", 0, kMaxRecords));
-  GridTargets targets{std::vector<int>(positions, default_records),
-                      std::vector<bool>(positions, false)};
+  const auto channels = m.Find("channels");
+  GridTargets targets{
+      std::vector<int>(positions, default_records), std::vector<bool>(positions, false),
+      std::vector<uint32_t>(positions,
+                            channels ? ReadChannelNeeds(*channels, plan) : kAllChannels)};
   if (const auto overrides = m.Find("overrides")) {
-    for (const Field& item : AsList(*overrides)) ApplyOverride(item, grid, &targets);
+    for (const Field& item : AsList(*overrides)) ApplyOverride(item, grid, plan, &targets);
   }
   if (state != OperatingState::kParked) {
-    CheckProductionRange(wind_field, grid, targets, turbine);
+    CheckProductionRange(wind_field, grid, targets, plan.turbine);
   }
   AppendCells(std::move(grid), targets, matrix);
 }
@@ -282,16 +293,15 @@ CaptureMatrix ReadCaptureMatrix(const Field& f, const Plan& plan) {
   if (!m.Has("production") && !m.Has("parked") && !m.Has("reduced") && !m.Has("events")) {
     Fail(f, "has no cells; give production, parked, reduced or events");
   }
-  const TurbineSpec& turbine = plan.turbine;
   CaptureMatrix matrix;
   if (const auto p = m.Find("production")) {
-    ReadState(*p, OperatingState::kProduction, turbine, &matrix);
+    ReadState(*p, OperatingState::kProduction, plan, &matrix);
   }
   if (const auto p = m.Find("parked"))
-    ReadState(*p, OperatingState::kParked, turbine, &matrix);
+    ReadState(*p, OperatingState::kParked, plan, &matrix);
   if (const auto p = m.Find("reduced")) {
     CheckReduceRule(*p, plan);
-    ReadState(*p, OperatingState::kReduced, turbine, &matrix);
+    ReadState(*p, OperatingState::kReduced, plan, &matrix);
   }
   if (const auto e = m.Find("events")) ReadEventCells(*e, plan, &matrix);
   const bool any_required = std::any_of(matrix.cells.begin(), matrix.cells.end(),

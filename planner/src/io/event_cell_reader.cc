@@ -11,7 +11,7 @@ namespace io {
 namespace {
 
 const std::vector<std::string> kEventCellFields = {"event", "wind_ms", "min_records",
-                                                   "optional"};
+                                                   "optional", "channels"};
 constexpr double kMaxRecords = 1000000;
 
 // Every event type a cell may name: the natural ones, then the plan's tests.
@@ -67,6 +67,7 @@ EventCellInput ReadEventCell(const Field& f, const Plan& plan,
   in.cell.wind_ms = Bin{lo, hi};
   in.cell.required = AsWholeNumber(m.Get("min_records"), Interval("[]", 1, kMaxRecords));
   in.cell.optional = ReadBool(m, "optional", false);
+  if (const auto c = m.Find("channels")) in.cell.channels = ReadChannelNeeds(*c, plan);
   CheckCanFill(wind, event, in.cell.wind_ms, plan);
   return in;
 }

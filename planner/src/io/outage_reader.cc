@@ -12,7 +12,15 @@ namespace io {
 namespace {
 
 const std::vector<std::string> kOutagesFields = {
-    "turbine", "data_acquisition", "planned", "episodes", "parked_counts_during_outage"};
+    "turbine",  "data_acquisition", "planned", "episodes", "channel_groups",
+    "parked_counts_during_outage"};
+const std::vector<std::string> kChannelGroupFields = {
+    "name",         "mtbf_h",         "mttr_h",
+    "up_times",     "repair_times",   "repair_month_factors",
+    "recalibration"};
+const std::vector<std::string> kRecalibrationFields = {"hours", "below_ms", "crew"};
+const Limits kRecalibrationHoursLimits = Interval("(]", 0, 24 * 14, "h");
+const Limits kRecalibrationWindLimits = Interval("(]", 0, 50, "m/s");
 const std::vector<std::string> kEpisodeFields = {"name", "starts_per_month", "mean_h",
                                                  "durations", "effect"};
 const Limits kEpisodeMeanLimits = Interval("(]", 0, 24 * 60, "h");
@@ -114,8 +122,7 @@ void ReadRepairMonthFactors(const Field& f, OutageModel* model) {
   }
 }
 
-OutageModel ReadOutageModel(const Field& f) {
-  const FieldMap m(f, kOutageModelFields);
+OutageModel ReadOutageModelFields(const FieldMap& m) {
   OutageModel model;
   LawInput up;
   LawInput repair;
@@ -136,6 +143,35 @@ OutageModel ReadOutageModel(const Field& f) {
     ReadRepairMonthFactors(*factors, &model);
   }
   return model;
+}
+
+OutageModel ReadOutageModel(const Field& f) {
+  return ReadOutageModelFields(FieldMap(f, kOutageModelFields));
+}
+
+Recalibration ReadRecalibration(const Field& f) {
+  const FieldMap m(f, kRecalibrationFields);
+  Recalibration r;
+  r.needed = true;
+  r.hours = ReadNumber(m, "hours", kRecalibrationHoursLimits);
+  r.below_ms = ReadNumber(m, "below_ms", kRecalibrationWindLimits);
+  r.crew = ReadBool(m, "crew", true);
+  return r;
+}
+
+ChannelGroup ReadChannelGroup(const Field& f, NameSet* names) {
+  const FieldMap m(f, kChannelGroupFields);
+  ChannelGroup g;
+  g.name = ReadName(m, "name");
+  names->Add(m.Get("name"), g.name);
+  g.failures = ReadOutageModelFields(m);
+  if (g.failures.mtbf_h == 0.0) {
+    Fail(m.Get("mtbf_h"), Text(m.Get("mtbf_h")) +
+                              " means the group never fails, so it changes nothing; "
+                              "give its mean up time above 0, or remove the group");
+  }
+  if (const auto r = m.Find("recalibration")) g.recalibration = ReadRecalibration(*r);
+  return g;
 }
 
 PlannedOutage ReadPlannedOutage(const Field& f, NameSet* names) {
@@ -224,6 +260,20 @@ void ReadOutages(const Field& f, Plan* plan) {
     }
     NameSet names("episode");
     for (const Field& item : items) plan->episodes.push_back(ReadEpisode(item, &names));
+  }
+  if (const auto p = m.Find("channel_groups")) {
+    const std::vector<Field> items = AsList(*p);
+    if (items.empty()) {
+      Fail(*p, "is empty; give at least one channel group, or leave the field out");
+    }
+    if (items.size() > static_cast<size_t>(kMaxChannelGroups)) {
+      Fail(*p, std::to_string(items.size()) + " channel groups given; at most " +
+                   std::to_string(kMaxChannelGroups) + " are allowed");
+    }
+    NameSet names("channel group");
+    for (const Field& item : items) {
+      plan->channel_groups.push_back(ReadChannelGroup(item, &names));
+    }
   }
   plan->parked_counts_during_outage = ReadBool(m, "parked_counts_during_outage", false);
 }

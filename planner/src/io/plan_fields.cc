@@ -37,6 +37,31 @@ std::pair<double, double> ReadWindRange(const Field& f) {
   return {lo, hi};
 }
 
+uint32_t ReadChannelNeeds(const Field& f, const Plan& plan) {
+  std::vector<std::string> names;
+  for (const ChannelGroup& g : plan.channel_groups) names.push_back(g.name);
+  if (names.empty()) {
+    Fail(f, "names load-channel groups, but outages.channel_groups defines none; define "
+            "the groups there, or leave the field out");
+  }
+  const std::vector<Field> items = AsList(f);
+  if (items.empty()) {
+    Fail(f, "is empty; a record needs at least one channel group (leave the field out "
+            "for every group)");
+  }
+  uint32_t mask = 0;
+  for (const Field& item : items) {
+    const std::string name = AsText(item);
+    const auto at = std::find(names.begin(), names.end(), name);
+    if (at == names.end()) {
+      Fail(item, Describe(item.node) +
+                     " is not a channel group; valid: " + JoinWords(names));
+    }
+    mask |= 1u << (at - names.begin());
+  }
+  return mask;
+}
+
 HourWindow ReadHourWindow(const Field& f) {
   const auto [from, to] = AsPair(f, "[from, to]");
   HourWindow window;

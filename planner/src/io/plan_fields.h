@@ -31,6 +31,11 @@ std::pair<double, double> ReadWindRange(const Field& f);
 // midnight when from > to ([22, 6]); [0, 24] is the whole day.
 HourWindow ReadHourWindow(const Field& f);
 
+// The load-channel groups a cell needs: a non-empty list of names of
+// plan.channel_groups (outages.channel_groups, read first). Returned as a
+// bit mask (Cell::channels).
+uint32_t ReadChannelNeeds(const Field& f, const Plan& plan);
+
 // True if `name` is a lowercase identifier: a-z, then a-z, 0-9 or _.
 bool IsIdentifier(const std::string& name);
 

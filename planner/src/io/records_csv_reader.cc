@@ -47,6 +47,7 @@ const Role kDirection{"--direction",
 const Role kState{"--state", "state", {"state", "operating_state"}, true};
 const Role kQuality{"--quality", "quality", {"quality", "quality_flag", "flag"}, true};
 const Role kEvent{"--event", "event", {"event"}, false};
+const Role kChannelsDown{"--channels-down", "channels-down", {"channels_down"}, false};
 
 std::string Lower(std::string s) {
   for (char& c : s) c = static_cast<char>(std::tolower(static_cast<unsigned char>(c)));
@@ -105,13 +106,14 @@ class Parser {
   bool Number(const std::vector<std::string>& cells, int col, int64_t line_no, double lo,
               double hi, const char* valid, double* x, bool* missing);
   bool Timestamp(const std::string& cell, int col, int64_t line_no, int64_t* time_s);
+  bool ChannelsDown(const std::string& cell, int64_t line_no, std::string* names);
 
   RecordsCsvOptions options_;
   RecordsFile out_;
   std::vector<std::string> header_;
   int header_line_ = 1;
   int time_ = -1, speed_ = -1, std_ = -1, dir_ = -1, state_ = -1, quality_ = -1,
-      event_ = -1;
+      event_ = -1, channels_ = -1;
   std::vector<std::string> problems_;
   int64_t problem_rows_ = 0;
   int64_t last_problem_line_ = 0;
@@ -155,9 +157,11 @@ void Parser::ReadHeader(const std::string& line, int64_t line_no) {
   state_ = Find(options_.state_column, kState);
   quality_ = Find(options_.quality_column, kQuality);
   event_ = Find(options_.event_column, kEvent);
+  channels_ = Find(options_.channels_down_column, kChannelsDown);
   const std::pair<int, const Role*> used[] = {
-      {time_, &kTime},   {speed_, &kSpeed},     {std_, &kStd},    {dir_, &kDirection},
-      {state_, &kState}, {quality_, &kQuality}, {event_, &kEvent}};
+      {time_, &kTime},   {speed_, &kSpeed},     {std_, &kStd},
+      {dir_, &kDirection}, {state_, &kState}, {quality_, &kQuality},
+      {event_, &kEvent}, {channels_, &kChannelsDown}};
   for (std::size_t i = 0; i < std::size(used); ++i) {
     for (std::size_t j = 0; j < i; ++j) {
       if (used[i].first >= 0 && used[i].first == used[j].first) {
@@ -174,6 +178,7 @@ void Parser::ReadHeader(const std::string& line, int64_t line_no) {
   out_.state_column = header_[state_];
   out_.quality_column = header_[quality_];
   out_.event_column = event_ >= 0 ? header_[event_] : "";
+  out_.channels_down_column = channels_ >= 0 ? header_[channels_] : "";
 }
 
 void Parser::Problem(int64_t line_no, int col, const std::string& value,
@@ -281,9 +286,41 @@ void Parser::ReadRow(const std::string& line, int64_t line_no) {
       ok = false;
     }
   }
+  if (channels_ >= 0) ok &= ChannelsDown(cells[channels_], line_no, &r.channels_down);
   if (!ok) return;
   out_.missing_values += missing ? 1 : 0;
   out_.rows.push_back(std::move(row));
+}
+
+// Group names separated by ';' or spaces; empty, "-" or "none" for none.
+// Stored joined by ";".
+bool Parser::ChannelsDown(const std::string& cell, int64_t line_no, std::string* names) {
+  names->clear();
+  if (cell.empty() || cell == "-" || Lower(cell) == "none") return true;
+  std::string word;
+  auto flush = [&]() {
+    if (word.empty()) return true;
+    if (!IsEventName(word)) return false;
+    *names += (names->empty() ? "" : ";") + word;
+    word.clear();
+    return true;
+  };
+  bool ok = true;
+  for (const char c : cell) {
+    if (c == ';' || c == ' ') {
+      ok = ok && flush();
+    } else {
+      word += c;
+    }
+  }
+  ok = ok && flush();
+  if (!ok) {
+    Problem(line_no, channels_, cell,
+            "is not a list of load-channel groups; valid: empty or none, or names of "
+            "letters, digits, '_' and '-' separated by ';' (groups of the plan's "
+            "outages.channel_groups)");
+  }
+  return ok;
 }
 
 RecordsFile Parser::Finish() {

@@ -40,6 +40,9 @@ struct RecordsCsvOptions {
   std::string time_column, speed_column, std_column, direction_column;
   std::string state_column, quality_column;
   std::string event_column;   // optional column: "" = a column named "event", if any
+  // Optional column of load-channel groups down: "" = a column named
+  // "channels_down", if any.
+  std::string channels_down_column;
   bool stamp_at_end = false;  // timestamps mark the end of the period
   double utc_offset_h = 0;    // timestamps are written in UTC + this many hours
 };
@@ -53,7 +56,7 @@ struct RecordsFile {
   int64_t missing_values = 0;   // rows with a missing speed, std or direction
   // The columns used ("" for the event column when there is none).
   std::string time_column, speed_column, std_column, direction_column, state_column,
-      quality_column, event_column;
+      quality_column, event_column, channels_down_column;
 };
 
 RecordsFile ReadRecordsCsv(std::istream& in, const std::string& file_name,

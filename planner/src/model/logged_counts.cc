@@ -141,6 +141,30 @@ LoggedCounts CountLoggedRecords(const Plan& plan,
       tally.Reset(plan.planned_changes[change]);
     }
   };
+  // Load-channel groups: by name, and those every cell needs.
+  uint32_t every_cell_needs = 0;
+  if (!plan.channel_groups.empty()) {
+    every_cell_needs = static_cast<uint32_t>((1ull << plan.channel_groups.size()) - 1);
+    for (const Cell& c : plan.matrix.cells) every_cell_needs &= c.channels;
+  }
+  const auto channels_down = [&](const std::string& names) {
+    uint32_t mask = 0;
+    bool unknown = false;
+    for (size_t from = 0; from < names.size();) {
+      const size_t end = std::min(names.find(';', from), names.size());
+      const std::string name = names.substr(from, end - from);
+      const auto g = std::find_if(plan.channel_groups.begin(), plan.channel_groups.end(),
+                                  [&](const ChannelGroup& x) { return x.name == name; });
+      if (g == plan.channel_groups.end()) {
+        unknown = true;
+      } else {
+        mask |= 1u << (g - plan.channel_groups.begin());
+      }
+      from = end + 1;
+    }
+    out.unknown_channel_groups += unknown;
+    return mask;
+  };
   for (const LoggedRecord& r : records) {
     reset_before(r.time_s);
     if (r.time_s < start_s) {
@@ -162,8 +186,11 @@ LoggedCounts CountLoggedRecords(const Plan& plan,
       out.last_direction_deg = r.direction_deg;
     }
     const int64_t record_end_s = r.time_s + kRecordSeconds;
+    const uint32_t down = r.channels_down.empty() ? 0u : channels_down(r.channels_down);
     bool valid = false;
-    if (!r.quality_ok) {
+    if (down & every_cell_needs) {
+      ++out.channels_down;
+    } else if (!r.quality_ok) {
       ++out.quality_rejected;
     } else if (!known) {
       ++out.missing_values;
@@ -182,7 +209,8 @@ LoggedCounts CountLoggedRecords(const Plan& plan,
         ++out.unknown_events;
       } else if (valid) {
         const int cell = finder.EventCell(type, r.speed_ms);
-        if (cell >= 0) tally.Count(cell, record_end_s), ++out.counted_events;
+        if (cell >= 0 && (plan.matrix.cells[cell].channels & down) == 0)
+          tally.Count(cell, record_end_s), ++out.counted_events;
       }
     }
     if (!valid || test_record) continue;
@@ -194,7 +222,8 @@ LoggedCounts CountLoggedRecords(const Plan& plan,
     bool missing = false;
     const int cell = finder.RecordCell(grid_state, r, &missing);
     if (missing) ++out.missing_values;
-    if (cell >= 0) tally.Count(cell, record_end_s), ++out.counted_records;
+    if (cell >= 0 && (plan.matrix.cells[cell].channels & down) == 0)
+      tally.Count(cell, record_end_s), ++out.counted_records;
   }
   reset_before(end_s - 1);  // changes after the last record, before as_of
   return out;

@@ -258,6 +258,10 @@ std::string TextBottleneckAndDiagnostics(const Plan& plan, const ForecastSummary
                       Percent(s.turbine_availability).c_str());
   out += StringPrintf("  Data acquisition available:   %8s\n",
                       Percent(s.daq_availability).c_str());
+  if (!plan.channel_groups.empty()) {
+    out += StringPrintf("  All load channels counting:   %8s\n",
+                        Percent(s.channels_availability).c_str());
+  }
   out += StringPrintf("  Wind from a valid sector:     %8s\n",
                       Percent(s.valid_sector_share).c_str());
   out += StringPrintf("  Curtailment rule in force:    %8s\n",
@@ -403,6 +407,8 @@ std::string FormatForecastJson(const Plan& plan, const ForecastSummary& s,
                       {"valid_sector_share", s.valid_sector_share},
                       {"curtailed_share", s.curtailed_share},
                       {"mean_speed_ms", s.mean_speed_ms}};
+  if (!plan.channel_groups.empty())
+    j["diagnostics"]["channels_availability"] = s.channels_availability;
   j["notes"] = ResultNotes(s);
   j["cautions"] = StandardCautions();
   return j.dump(2) + "\n";

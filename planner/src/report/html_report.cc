@@ -413,7 +413,7 @@ std::string ComparisonSection(const HtmlReportInput& in) {
 
 // ---- diagnostics, inputs, cautions ---------------------------------------------
 
-std::string DiagnosticsSection(const ForecastSummary& s) {
+std::string DiagnosticsSection(const Plan& plan, const ForecastSummary& s) {
   std::string out =
       "<section id=\"diagnostics\">\n<h2>What the simulated time looked "
       "like</h2>\n<table class=\"inputs\">\n";
@@ -422,6 +422,8 @@ std::string DiagnosticsSection(const ForecastSummary& s) {
   };
   out += row("Turbine available", PercentText(s.turbine_availability));
   out += row("Data acquisition available", PercentText(s.daq_availability));
+  if (!plan.channel_groups.empty())
+    out += row("All load channels counting", PercentText(s.channels_availability));
   out += row("Wind from a valid measurement sector", PercentText(s.valid_sector_share));
   out += row("Curtailment rule in force", PercentText(s.curtailed_share));
   out += row("Mean wind speed at hub height", StringPrintf("%.2f m/s", s.mean_speed_ms));
@@ -454,6 +456,8 @@ std::string InputsSection(const HtmlReportInput& in) {
     out += row("High-wind stops", Esc(h));
   if (const std::string e = EpisodesText(plan); !e.empty())
     out += row("Episodes", Esc(e));
+  if (const std::string c = ChannelGroupsText(plan); !c.empty())
+    out += row("Load-channel groups", Esc(c));
   out += row("Start", FormatDate(plan.start) + " (00:00)");
   out += row("Deadline", FormatDate(plan.deadline) +
                              StringPrintf(" (exclusive; %.1f weeks after the start)",
@@ -496,7 +500,7 @@ std::string FormatHtmlReport(const HtmlReportInput& in) {
   out += FillSection(in);
   out += SweepSection(in);
   out += ComparisonSection(in);
-  out += DiagnosticsSection(*in.forecast);
+  out += DiagnosticsSection(*in.plan, *in.forecast);
   out += InputsSection(in);
   out += CautionsSection();
   out += "</main>\n<footer>Written by fillcast " + Esc(in.context.tool_version) +

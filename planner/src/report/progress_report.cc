@@ -111,6 +111,8 @@ std::string LoggedText(const ProgressSummary& s) {
   out += row("  quality flag rejected", l.quality_rejected);
   out += row("  wind from outside the valid sectors", l.outside_sector);
   out += row("  missing speed, direction or std", l.missing_values);
+  if (l.channels_down > 0)
+    out += row("  load channels down that every cell needs", l.channels_down);
   out += row("events counted for an event cell", l.counted_events);
   if (l.unknown_events > 0)
     out += row("events the plan has no type for", l.unknown_events);
@@ -225,6 +227,12 @@ std::vector<std::string> Notes(const ProgressSummary& s) {
         "No usable logged wind before the as-of date: the weather starts from the "
         "climate's average.");
   }
+  if (s.logged.unknown_channel_groups > 0) {
+    notes.push_back(StringPrintf(
+        "%lld logged records name a load-channel group the plan does not define "
+        "(outages.channel_groups); that name was ignored.",
+        static_cast<long long>(s.logged.unknown_channel_groups)));
+  }
   if (s.logged.unknown_events > 0) {
     notes.push_back(StringPrintf(
         "%lld logged events name no event type of the plan's matrix; they counted for "
@@ -291,6 +299,10 @@ Json LoggedJson(const LoggedCounts& l) {
   j["outside_sector"] = l.outside_sector;
   j["missing_values"] = l.missing_values;
   j["unknown_events"] = l.unknown_events;
+  if (l.channels_down > 0 || l.unknown_channel_groups > 0) {
+    j["channels_down"] = l.channels_down;
+    j["unknown_channel_groups"] = l.unknown_channel_groups;
+  }
   j["before_start"] = l.before_start;
   j["after_as_of"] = l.after_as_of;
   j["first_record"] = l.first_time_s ? Json(Stamp(*l.first_time_s)) : Json(nullptr);

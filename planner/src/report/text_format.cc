@@ -44,6 +44,8 @@ std::string PlanHeaderLines(const Plan& plan, size_t label_width) {
     out += Wrap(label("High wind"), h);
   if (const std::string e = EpisodesText(plan); !e.empty())
     out += Wrap(label("Episodes"), e);
+  if (const std::string c = ChannelGroupsText(plan); !c.empty())
+    out += Wrap(label("Channels"), c);
   return out;
 }
 
@@ -75,6 +77,21 @@ std::string EpisodesText(const Plan& plan) {
                                            : "records invalid";
     out += StringPrintf("%s%s (%s): %.1f a year, mean %g h", out.empty() ? "" : "; ",
                         e.name.c_str(), effect, per_year, e.mean_h);
+  }
+  return out;
+}
+
+std::string ChannelGroupsText(const Plan& plan) {
+  std::string out;
+  for (const ChannelGroup& g : plan.channel_groups) {
+    const double share = g.failures.mtbf_h / (g.failures.mtbf_h + g.failures.mttr_h);
+    out += StringPrintf("%s%s: up %.1f %%", out.empty() ? "" : "; ", g.name.c_str(),
+                        100.0 * share);
+    const Recalibration& r = g.recalibration;
+    if (r.needed) {
+      out += StringPrintf(", then %g h below %g m/s%s to recalibrate", r.hours, r.below_ms,
+                          r.crew ? " with the crew" : "");
+    }
   }
   return out;
 }

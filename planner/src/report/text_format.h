@@ -43,6 +43,10 @@ std::string HighWindText(const TurbineSpec& t);
 // "icing (stops the turbine, records invalid): 5.3 a year, mean 30 h", one
 // per episode joined by "; ", or "" without episodes.
 std::string EpisodesText(const Plan& plan);
+// "blade: up 96.9 %, then 2 h below 6 m/s with the crew to recalibrate;
+// tower: up 99.4 %", the long-run share of each load-channel group's repair
+// cycle it is up (MTBF / (MTBF + MTTR)), or "" without groups.
+std::string ChannelGroupsText(const Plan& plan);
 
 }  // namespace planner
 

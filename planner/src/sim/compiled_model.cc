@@ -182,6 +182,16 @@ CompiledModel CompileModel(const Plan& plan, double relaxed_share) {
   m.turbine_outages = MakeRenewalLaw(plan.turbine_outages);
   m.daq_outages = MakeRenewalLaw(plan.daq_outages);
   for (const EpisodeModel& e : plan.episodes) m.episodes.push_back(MakeEpisodeLaw(e));
+  for (const ChannelGroup& g : plan.channel_groups)
+    m.channel_groups.push_back(MakeChannelGroupLaw(g));
+  const uint32_t groups = plan.channel_groups.empty()
+                              ? 0u
+                              : static_cast<uint32_t>((1ull << plan.channel_groups.size()) - 1);
+  m.channels_every_cell_needs = groups;
+  for (const Cell& c : plan.matrix.cells) {
+    m.cell_channels.push_back(c.channels & groups);
+    m.channels_every_cell_needs &= c.channels;
+  }
   m.parked_counts_during_outage = plan.parked_counts_during_outage;
   m.quality_reject = plan.quality_reject_fraction;
   m.keep_threshold = ProbabilityThreshold(m.sector_chain.keep_probability);

@@ -13,6 +13,7 @@
 #include "planner/plan.h"
 #include "planner/turbulence.h"
 #include "sim/bin_lookup.h"
+#include "sim/channel_groups.h"
 #include "sim/episode_process.h"
 #include "sim/high_wind_shutdown.h"
 #include "sim/renewal_process.h"
@@ -160,6 +161,11 @@ struct CompiledModel {
   RenewalLaw turbine_outages, daq_outages;
   std::vector<StepInterval> planned_turbine, planned_daq;  // sorted, merged
   std::vector<EpisodeLaw> episodes;                        // icing and the like
+  // Load-channel groups; per cell the groups it needs (bit masks), and the
+  // groups every cell needs (when one of those is down no record counts).
+  std::vector<ChannelGroupLaw> channel_groups;
+  std::vector<uint32_t> cell_channels;
+  uint32_t channels_every_cell_needs = 0;
   // Planned changes: at step `step` the counts of `cells` go back to 0.
   struct CountReset {
     int64_t step = 0;

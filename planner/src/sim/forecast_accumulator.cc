@@ -72,6 +72,7 @@ struct ForecastAccumulator::State {
   std::vector<CellTally> cells;
   // Sums of simulated time, in run order.
   double simulated = 0, turbine_up = 0, daq_up = 0, valid_sector = 0, curtailed = 0;
+  double channels_up = 0;
   double speed_sum = 0;
   SensitivityTally sensitivity;
   FillCurveTally fill_curve;
@@ -111,6 +112,7 @@ void ForecastAccumulator::Add(const RunResult& r) {
   st.simulated += static_cast<double>(r.simulated_steps);
   st.turbine_up += static_cast<double>(r.turbine_up_steps);
   st.daq_up += static_cast<double>(r.daq_up_steps);
+  st.channels_up += static_cast<double>(r.channels_up_steps);
   st.valid_sector += static_cast<double>(r.valid_sector_steps);
   st.curtailed += static_cast<double>(r.curtailed_steps);
   st.speed_sum += r.speed_sum_ms;
@@ -202,6 +204,7 @@ ForecastSummary ForecastAccumulator::Summary(uint64_t seed) const {
   if (st.simulated > 0) {
     s.turbine_availability = st.turbine_up / st.simulated;
     s.daq_availability = st.daq_up / st.simulated;
+    s.channels_availability = st.channels_up / st.simulated;
     s.valid_sector_share = st.valid_sector / st.simulated;
     s.curtailed_share = st.curtailed / st.simulated;
     s.mean_speed_ms = st.speed_sum / st.simulated;

@@ -63,6 +63,7 @@ std::vector<std::string> ImplausibleNumbers(const ForecastSummary& s) {
   c.Share("share incomplete at the horizon", s.p_incomplete_at_horizon);
   c.Share("turbine availability", s.turbine_availability);
   c.Share("data acquisition availability", s.daq_availability);
+  c.Share("load-channel availability", s.channels_availability);
   c.Share("share of wind from a valid sector", s.valid_sector_share);
   c.Share("share of time curtailed", s.curtailed_share);
   c.Range("mean wind speed at hub", s.mean_speed_ms, 0.0, kMaxMeanSpeedMs,

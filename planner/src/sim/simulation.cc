@@ -23,6 +23,7 @@ constexpr uint64_t kTiSalt = 0x74692D6C6174656EULL;
 constexpr uint64_t kReplaySalt = 0x7265706C61792D62ULL;
 constexpr uint64_t kShutdownSalt = 0x6869676877696E64ULL;
 constexpr uint64_t kEpisodeSalt = 0x6570697365646531ULL;  // + the episode's index
+constexpr uint64_t kChannelSalt = 0x6368616E6E656C31ULL;  // + the group's index
 
 // Normal score z with Phi(z) = F(x) for a unit-scale Weibull of shape k:
 // the inverse of SpeedTransform (Boost.Math's normal quantile).
@@ -72,7 +73,9 @@ struct RunState {
   double direction_u = 0;  // position within the sector, [0, 1)
   // Cached for the current direction.
   bool sector_ok = false;
-  bool recordable = false;       // daq_up && sector_ok && !records_void
+  // daq_up && sector_ok && !records_void, and no channel group that every
+  // cell needs is down (RunLoop::Recordable)
+  bool recordable = false;
   uint32_t direction_rules = 0;  // curtailment rules whose direction holds
   double x_ti = 0;  // latent TI normal at step ti_step
   int64_t ti_step = 0;
@@ -81,6 +84,8 @@ struct RunState {
   // Outage states, re-evaluated only at the steps where one may change.
   bool turbine_up = true, daq_up = true;
   bool records_void = false;  // an episode (icing) makes records invalid
+  uint32_t channels_down = 0;  // load-channel groups whose records do not count
+  bool recalibrating = false;  // a repaired group waits for its recalibration
   int64_t next_outage_step = 0;
   // Set once per hour.
   uint32_t hour_rules = 0;  // curtailment rules in force this month and hour
@@ -96,6 +101,8 @@ struct RunState {
   // Diagnostics. The time shares are summed per interval, when the outage
   // states or the direction change (and at the end), not per step.
   int64_t turbine_up_steps = 0, daq_up_steps = 0, valid_sector_steps = 0;
+  int64_t channels_up_steps = 0;
+  int64_t channels_since = 0;  // first step of the current channel states
   int64_t outages_since = 0;    // first step of the current outage states
   int64_t direction_since = 0;  // first step of the current direction
   int64_t curtailed_steps = 0;
@@ -129,6 +136,8 @@ class RunLoop {
         planned_turbine_(m.planned_turbine),
         planned_daq_(m.planned_daq),
         shutdown_(m.shutdown, MakeRunEngine(seed ^ kShutdownSalt, run)),
+        channels_(m.channel_groups, ChannelEngines(m, seed, run), m.day_month.data(),
+                  static_cast<int64_t>(m.day_month.size())),
         last_test_(m.manual_tests.size(), INT64_MIN / 2),
         out_(out) {
     for (size_t e = 0; e < m.episodes.size(); ++e) {
@@ -178,6 +187,23 @@ class RunLoop {
                    bool* transition);
   uint32_t DirectionRules(int sector, double direction_u) const;
   void UpdateOutages(int64_t step, RunState& s);
+  bool Recordable(const RunState& s) const {
+    return s.daq_up && s.sector_ok && !s.records_void &&
+           (s.channels_down & m_.channels_every_cell_needs) == 0;
+  }
+  // Whether the channel groups `cell` needs are up.
+  bool ChannelsUp(int cell, const RunState& s) const {
+    return (s.channels_down & m_.cell_channels[cell]) == 0;
+  }
+  void SetChannels(int64_t step, RunState& s);
+  void ObserveChannels(double speed_ms, int64_t step, RunState& s);
+  static std::vector<Engine> ChannelEngines(const CompiledModel& m, uint64_t seed,
+                                            uint64_t run) {
+    std::vector<Engine> engines;
+    for (size_t g = 0; g < m.channel_groups.size(); ++g)
+      engines.push_back(MakeRunEngine(seed ^ (kChannelSalt + g), run));
+    return engines;
+  }
   bool HighWind(bool was_stopped, double speed_ms, bool may_run, int64_t step,
                 const DayWeather& w, int k, RunState& s);
   double RecordLogTi(double speed_ms, int64_t step, const DayWeather& w, int k,
@@ -214,6 +240,7 @@ class RunLoop {
   OutageWindows planned_turbine_, planned_daq_;
   HighWindShutdown shutdown_;
   std::vector<EpisodeProcess> episodes_;
+  ChannelGroups channels_;
   std::vector<int64_t> last_test_;  // per manual test: step it was last done
   ZigguratNormal normal_;
   RunResult* out_;
@@ -344,7 +371,7 @@ inline void RunLoop::SetDirection(int sector, double direction_u, int64_t step,
   s.sector = sector;
   s.direction_u = direction_u;
   s.sector_ok = InSpans(m_.sector_valid_spans[s.sector], s.direction_u);
-  s.recordable = s.daq_up && s.sector_ok && !s.records_void;
+  s.recordable = Recordable(s);
   if (!m_.curtailment.empty())
     s.direction_rules = DirectionRules(s.sector, s.direction_u);
 }
@@ -372,7 +399,31 @@ inline void RunLoop::SetDirection(int sector, double direction_u, int64_t step,
     }
     s.next_outage_step = std::min(s.next_outage_step, e.NextChangeStep());
   }
-  s.recordable = s.daq_up && s.sector_ok && !s.records_void;
+  if (!m_.channel_groups.empty()) {
+    channels_.UpdateAt(step);
+    s.next_outage_step = std::min(s.next_outage_step, channels_.NextChangeStep());
+    SetChannels(step, s);
+  }
+  s.recordable = Recordable(s);
+}
+
+// The channel groups' states from `step` on.
+void RunLoop::SetChannels(int64_t step, RunState& s) {
+  if (s.channels_down == 0) s.channels_up_steps += step - s.channels_since;
+  s.channels_since = step;
+  s.channels_down = channels_.down();
+  s.recalibrating = channels_.recalibrating();
+}
+
+// A record while a repaired channel group waits for its recalibration: once
+// the record ends, a group whose conditions have held long enough counts
+// again, from the next step on (which is then looked at anew).
+[[gnu::noinline, gnu::cold]] void RunLoop::ObserveChannels(double speed_ms, int64_t step,
+                                                           RunState& s) {
+  if (!channels_.Observe(speed_ms, s.crew_here)) return;
+  SetChannels(step + 1, s);
+  s.recordable = Recordable(s);
+  s.next_event = std::min(s.next_event, step + 1);
 }
 
 // The shutdown unit's answer for a record at or above its attention speed or
@@ -420,7 +471,7 @@ Curtail RunLoop::CurtailmentAt(double speed_ms, uint32_t rules) const {
 inline int RunLoop::CountEvent(int type, double speed_ms, int64_t step, RunState& s) {
   const EventCells& e = m_.events[type];
   const int i = e.wind.Find(speed_ms);
-  if (i < 0) return -1;
+  if (i < 0 || !ChannelsUp(e.cells[i], s)) return -1;
   Count(e.cells[i], step, s);
   return e.cells[i];
 }
@@ -452,9 +503,10 @@ inline int RunLoop::CountEvent(int type, double speed_ms, int64_t step, RunState
     const int i = e.wind.Find(speed_ms);
     if (i < 0 || counts_[e.cells[i]] >= m_.required[e.cells[i]]) continue;
     last_test_[t] = step;
-    if (valid) Count(e.cells[i], step, s);
+    const bool counts = valid && ChannelsUp(e.cells[i], s);
+    if (counts) Count(e.cells[i], step, s);
     if (trace_ != nullptr)
-      traced_event_type_ = test.event_type, traced_event_cell_ = valid ? e.cells[i] : -1;
+      traced_event_type_ = test.event_type, traced_event_cell_ = counts ? e.cells[i] : -1;
     s.producing = false;  // the test stopped the turbine: next comes a start-up
     return true;
   }
@@ -493,14 +545,20 @@ inline void RunLoop::Step(int64_t step, int k, const DayWeather& w, const StepLi
         state == 0 && TryManualTest(speed, quality_ok, step, s)) {
       // A test record is a transient, not a production record.
       if constexpr (kTrace) Trace(step, speed, state, quality_ok, true, -1, s);
+      if (s.recalibrating) ObserveChannels(speed, step, s);
       return;
     }
     if (quality_ok && (producing || s.turbine_up || lim.parked_counts_during_outage)) {
       cell = CellOf<kReplay>(state, speed, w, k, step, s);
-      if (cell >= 0) Count(cell, step, s);
+      if (cell >= 0 && (s.channels_down == 0 || ChannelsUp(cell, s))) {
+        Count(cell, step, s);
+      } else {
+        cell = -1;
+      }
     }
   }
   if constexpr (kTrace) Trace(step, speed, state, quality_ok, false, cell, s);
+  if (s.recalibrating) ObserveChannels(speed, step, s);
 }
 
 void RunLoop::Trace(int64_t step, double speed_ms, int state, bool quality_ok,
@@ -514,6 +572,7 @@ void RunLoop::Trace(int64_t step, double speed_ms, int state, bool quality_ok,
   t.state = static_cast<OperatingState>(state);
   t.turbine_up = s.turbine_up;
   t.daq_up = s.daq_up;
+  t.channels_down = s.channels_down;
   t.sector_ok = s.sector_ok;
   t.quality_ok = quality_ok;
   t.valid = s.recordable && quality_ok;
@@ -580,7 +639,7 @@ void RunLoop::Run(const CampaignState* state) {
   // (Changes before a continued campaign's start are in its logged counts.)
   while (next_reset_ < m_.count_resets.size() && m_.count_resets[next_reset_].step < step)
     ++next_reset_;
-  s.direction_since = s.outages_since = step;
+  s.direction_since = s.outages_since = s.channels_since = step;
   if (state != nullptr) ApplyState(*state, step, s, ws);
   ws.sector_scale_ms = m_.sector_scale_ms[s.sector];
   ws.transform = &m_.speed_transform[s.sector];
@@ -653,12 +712,15 @@ template <bool kReplay>
 int RunLoop::Stretch(int k, int end, int64_t day_step, const DayWeather& w,
                      const StepLimits& lim, DayTallies& day, RunState& s) {
   bool transition = false;
-  if (s.recordable && s.turbine_up) {
+  if (s.recordable && s.turbine_up && s.channels_down == 0) {
     k = PlainStretch<true, kReplay>(k, end, day_step, w, lim, day, s, &transition);
-  } else if (!s.recordable || !lim.parked_counts_during_outage) {
+  } else if (!s.recalibrating &&
+             (!s.recordable || (!s.turbine_up && !lim.parked_counts_during_outage))) {
     k = PlainStretch<false, kReplay>(k, end, day_step, w, lim, day, s, &transition);
-  } else {  // turbine down, parked records counted: the full steps
-    // (until something is due: a count may complete the matrix)
+  } else {
+    // The full steps: the turbine down with parked records counted, a channel
+    // group down that some cells do not need, or one waiting for its
+    // recalibration (until something is due: a count may complete the matrix)
     for (; k < end && day_step + k < s.next_event; ++k)
       Step<false, kReplay>(day_step + k, k, w, lim, day, s);
   }
@@ -790,6 +852,8 @@ void RunLoop::Stop(int64_t steps, const RunState& s) {
   out_->turbine_up_steps =
       s.turbine_up_steps + (s.turbine_up ? steps - s.outages_since : 0);
   out_->daq_up_steps = s.daq_up_steps + (s.daq_up ? steps - s.outages_since : 0);
+  out_->channels_up_steps =
+      s.channels_up_steps + (s.channels_down == 0 ? steps - s.channels_since : 0);
   out_->valid_sector_steps =
       s.valid_sector_steps + (s.sector_ok ? steps - s.direction_since : 0);
   out_->curtailed_steps = s.curtailed_steps;
