@@ -28,6 +28,13 @@ TEST(ForecastCliTest, DemoForecastPrintsSummaryAndCautions) {
   EXPECT_NE(o.output.find("weeks"), std::string::npos);
   EXPECT_NE(o.output.find("Cautions"), std::string::npos);
   EXPECT_NE(o.output.find("estimate"), std::string::npos);
+  // The demo plan uses all four processes that can hold a campaign up.
+  EXPECT_NE(o.output.find("What holds the campaign up"), std::string::npos);
+  EXPECT_NE(o.output.find("icing episodes"), std::string::npos);
+  const Outcome quick =
+      RunFillcast("forecast " + Demo() + " --runs 200 --seed 3 --no-explain");
+  ASSERT_EQ(quick.exit_code, 0) << quick.output;
+  EXPECT_EQ(quick.output.find("What holds the campaign up"), std::string::npos);
 }
 
 TEST(ForecastCliTest, SameSeedSameJsonForOneAndTwoThreads) {
@@ -47,6 +54,8 @@ TEST(ForecastCliTest, SameSeedSameJsonForOneAndTwoThreads) {
   two.erase("threads");
   EXPECT_EQ(one.dump(), two.dump());
   EXPECT_EQ(one["runs"], 300);
+  ASSERT_EQ(one["hold_ups"].size(), 4u);
+  EXPECT_EQ(one["hold_ups"][0]["process"], "short_term_stops");
   EXPECT_EQ(one["seed"], 11);
   fs::remove_all(dir);
 }
@@ -162,7 +171,7 @@ TEST(ForecastCliTest, PrecisionAddsRunsUntilTheIntervalIsNarrow) {
   const auto dir = fillcast_test::TempDir("precision");
   const fillcast_test::Outcome o = fillcast_test::RunFillcast(
       "forecast " + fillcast_test::SourcePath("demo-site/plan.yaml") +
-      " --runs 50 --precision 4 --precision-of p50 --quiet --json " +
+      " --runs 50 --precision 4 --precision-of p50 --no-explain --quiet --json " +
       (dir / "p.json").string());
   ASSERT_EQ(o.exit_code, 0) << o.output;
   const nlohmann::json j = fillcast_test::ReadJson(dir / "p.json");

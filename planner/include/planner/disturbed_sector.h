@@ -109,6 +109,11 @@ std::vector<DisturbedSector> DisturbedSectors(const SiteLayout& layout);
 std::vector<AngleRange> ValidSectorsFromLayout(const SiteLayout& layout,
                                                const std::vector<AngleRange>& allowed);
 
+// The same without the sectors seen from the turbine under test: the mast's
+// view alone (the turbine's own wake on the mast still removed).
+std::vector<AngleRange> ValidSectorsSeenFromMast(const SiteLayout& layout,
+                                                 const std::vector<AngleRange>& allowed);
+
 }  // namespace planner
 
 #endif  // PLANNER_DISTURBED_SECTOR_H_

@@ -6,6 +6,7 @@
 
 #include <cstdint>
 #include <optional>
+#include <string>
 #include <vector>
 
 #include "planner/capture_matrix.h"
@@ -50,6 +51,17 @@ struct FillPoint {
   double p10 = 0, p50 = 0, p90 = 0;
 };
 
+// A process switched off (planner/hold_ups.h): the forecast without it, from
+// the same runs and seed.
+struct HoldUp {
+  std::string key;    // e.g. "episode:icing"
+  std::string label;  // for people
+  QuantileEstimate p50, p80;
+  double p_complete_by_deadline = 0;
+  // P80 with every process minus P80 without this one (weeks; both reached).
+  std::optional<double> p80_saved_weeks;
+};
+
 struct ForecastSummary {
   long runs = 0;
   uint64_t seed = 0;
@@ -83,6 +95,9 @@ struct ForecastSummary {
   double valid_sector_share = 0;
   double curtailed_share = 0;  // time with a curtailment rule in force
   double mean_speed_ms = 0;    // mean simulated wind speed at hub height
+
+  // What each process the plan uses costs (empty: none, or not asked for).
+  std::vector<HoldUp> hold_ups;
 };
 
 // The summary of runs held in a vector (tests, small run counts): the same as

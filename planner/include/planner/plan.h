@@ -190,6 +190,9 @@ struct Plan {
   // plan or the full circle).
   std::vector<AngleRange> valid_sectors{AngleRange{0.0, 360.0}};
   SiteLayout layout;  // neighbours, obstacles, exclusions (may be empty)
+  // With a layout: the sectors as written in the plan (or the full circle),
+  // before the layout's disturbed sectors were removed.
+  std::vector<AngleRange> sectors_as_written{AngleRange{0.0, 360.0}};
 
   OutageModel turbine_outages;
   OutageModel daq_outages;  // data acquisition

@@ -13,6 +13,7 @@
 #include "planner/forecast.h"
 #include "planner/forecast_accumulator.h"
 #include "planner/forecast_report.h"
+#include "planner/hold_ups.h"
 #include "planner/monte_carlo.h"
 #include "planner/plan_reader.h"
 #include "planner/report_files.h"
@@ -33,6 +34,7 @@ struct ForecastArgs {
   std::string precision_quantile = "p80";
   int max_runs = 100000;
   double relaxed_share = 0.8;  // --relax: lowered minimum for the what-if
+  bool no_explain = false;     // --no-explain: skip the hold-up forecasts
 };
 
 double ParseQuantile(const std::string& text) {
@@ -116,8 +118,15 @@ int RunForecast(const ForecastArgs& args) {
   } else {
     RunMonteCarloInChunks({&sim}, mc, &progress, fold);
   }
-  const ForecastSummary summary = acc.Summary(mc.seed);
+  ForecastSummary summary = acc.Summary(mc.seed);
   RequirePlausible(summary, "the forecast");
+  if (!args.no_explain) {
+    // The same runs with each process switched off (planner/hold_ups.h).
+    MonteCarloOptions same = mc;
+    same.runs = static_cast<int>(summary.runs);
+    TerminalProgress explain("runs, one process off", args.run.quiet);
+    summary.hold_ups = ForecastHoldUps(plan, sim_options, same, summary, &explain);
+  }
 
   ctx.tool_version = FILLCAST_VERSION;
   ctx.threads = EffectiveThreads(mc.threads);
@@ -181,6 +190,10 @@ CommandAction AddForecastCommand(CLI::App& app) {
       ->type_name("N")
       ->check(WholeNumberIn(1, 10000000, "a whole number from --runs to 10000000"))
       ->capture_default_str();
+  cmd->add_flag("--no-explain", args->no_explain,
+               "Skip 'what holds the campaign up': the same runs once more per process "
+               "(short-term high-wind stops, each episode, load-channel groups, "
+               "turbine-side wakes) switched off");
   return [cmd, args]() { return cmd->parsed() ? RunForecast(*args) : -1; };
 }
 

@@ -198,6 +198,7 @@ SiteLayout ReadSiteLayout(const Field& f, const TurbineSpec& turbine) {
 
 void ReadLayout(const Field& f, bool sectors_given, Plan* plan) {
   plan->layout = ReadSiteLayout(f, plan->turbine);
+  plan->sectors_as_written = plan->valid_sectors;
   plan->valid_sectors = ValidSectorsFromLayout(plan->layout, plan->valid_sectors);
   if (!plan->valid_sectors.empty()) return;
   std::string sectors;

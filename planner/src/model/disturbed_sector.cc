@@ -196,11 +196,29 @@ std::vector<DisturbedSector> DisturbedSectors(const SiteLayout& layout) {
   return sectors;
 }
 
+namespace {
+
+std::vector<AngleRange> Remaining(const SiteLayout& layout,
+                                  const std::vector<AngleRange>& allowed,
+                                  bool turbine_view) {
+  std::vector<AngleRange> disturbed;
+  for (const DisturbedSector& s : DisturbedSectors(layout)) {
+    if (turbine_view || s.seen_from != Viewpoint::kTurbineUnderTest)
+      disturbed.push_back(s.range);
+  }
+  return ToRanges(Subtract(UnionOf(allowed), UnionOf(disturbed)));
+}
+
+}  // namespace
+
 std::vector<AngleRange> ValidSectorsFromLayout(const SiteLayout& layout,
                                                const std::vector<AngleRange>& allowed) {
-  std::vector<AngleRange> disturbed;
-  for (const DisturbedSector& s : DisturbedSectors(layout)) disturbed.push_back(s.range);
-  return ToRanges(Subtract(UnionOf(allowed), UnionOf(disturbed)));
+  return Remaining(layout, allowed, true);
+}
+
+std::vector<AngleRange> ValidSectorsSeenFromMast(const SiteLayout& layout,
+                                                 const std::vector<AngleRange>& allowed) {
+  return Remaining(layout, allowed, false);
 }
 
 }  // namespace planner

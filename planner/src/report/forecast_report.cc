@@ -249,10 +249,44 @@ std::string TextSavings(const Plan& plan, const ForecastSummary& s) {
   return out;
 }
 
+// What each process the plan uses costs: P50 and P80 with it switched off,
+// from the same runs and seed.
+std::string TextHoldUps(const ForecastSummary& s) {
+  if (s.hold_ups.empty()) return "";
+  std::string out = StringPrintf(
+      "\nWhat holds the campaign up (the same %ld runs and seed, one process switched "
+      "off)\n"
+      "  %-48s %8s %8s %10s %12s\n",
+      s.runs, "Switched off", "P50, wk", "P80, wk", "P80 saved", "by deadline");
+  out += StringPrintf("  %-48s %8s %8s %10s %12s\n", "(nothing: the forecast above)",
+                      WeeksText(s.p50.value, 8).c_str(), WeeksText(s.p80.value, 8).c_str(),
+                      "", Percent(s.p_complete_by_deadline).c_str());
+  for (const HoldUp& h : s.hold_ups) {
+    out += StringPrintf("  %-48s %8s %8s %10s %12s\n", FitLabel(h.label, 48).c_str(),
+                        WeeksText(h.p50.value, 8).c_str(),
+                        WeeksText(h.p80.value, 8).c_str(),
+                        SavedText(h.p80_saved_weeks).c_str(),
+                        Percent(h.p_complete_by_deadline).c_str());
+  }
+  const HoldUp* most = nullptr;
+  for (const HoldUp& h : s.hold_ups) {
+    if (h.p80_saved_weeks && *h.p80_saved_weeks > 0 &&
+        (most == nullptr || *h.p80_saved_weeks > *most->p80_saved_weeks))
+      most = &h;
+  }
+  if (most != nullptr) {
+    out += "\n" + Wrap("", "Switching off " + most->label + " saves most: " +
+                               StringPrintf("%.1f", *most->p80_saved_weeks) +
+                               " weeks at P80.");
+  }
+  return out;
+}
+
 std::string TextBottleneckAndDiagnostics(const Plan& plan, const ForecastSummary& s) {
   std::string out = "\n";
   out += Wrap("", BottleneckSentence(plan.matrix, s));
   out += TextSavings(plan, s);
+  out += TextHoldUps(s);
   out += "\nShares of the simulated time (diagnostics)\n";
   out += StringPrintf("  Turbine available:            %8s\n",
                       Percent(s.turbine_availability).c_str());
@@ -409,6 +443,18 @@ std::string FormatForecastJson(const Plan& plan, const ForecastSummary& s,
                       {"mean_speed_ms", s.mean_speed_ms}};
   if (!plan.channel_groups.empty())
     j["diagnostics"]["channels_availability"] = s.channels_availability;
+  if (!s.hold_ups.empty()) {
+    j["hold_ups"] = Json::array();
+    for (const HoldUp& h : s.hold_ups) {
+      j["hold_ups"].push_back({{"process", h.key},
+                               {"label", h.label},
+                               {"p50_weeks", OptionalNumber(h.p50.value)},
+                               {"p80_weeks", OptionalNumber(h.p80.value)},
+                               {"p80_ci95", QuantileJson(h.p80)},
+                               {"p80_saved_weeks", OptionalNumber(h.p80_saved_weeks)},
+                               {"p_complete_by_deadline", h.p_complete_by_deadline}});
+    }
+  }
   j["notes"] = ResultNotes(s);
   j["cautions"] = StandardCautions();
   return j.dump(2) + "\n";

@@ -295,6 +295,33 @@ std::string FillSection(const HtmlReportInput& in) {
 
 // ---- optional sections ---------------------------------------------------------
 
+std::string HoldUpsSection(const HtmlReportInput& in) {
+  const ForecastSummary& s = *in.forecast;
+  if (s.hold_ups.empty()) return "";
+  auto weeks = [](const std::optional<double>& w) {
+    return w ? StringPrintf("%.1f", *w) : std::string("not reached");
+  };
+  std::string out =
+      "<section id=\"hold-ups\">\n<h2>What holds the campaign up</h2>\n"
+      "<table>\n<thead><tr><th>Switched off</th><th>P50, weeks</th><th>P80, weeks</th>"
+      "<th>P80 saved, weeks</th><th>Complete by the deadline</th></tr></thead>\n<tbody>\n";
+  out += "<tr>" + Td("nothing: the forecast above") + TdNum(weeks(s.p50.value)) +
+         TdNum(weeks(s.p80.value)) + TdNum("") +
+         TdNum(PercentText(s.p_complete_by_deadline)) + "</tr>\n";
+  for (const HoldUp& h : s.hold_ups) {
+    out += "<tr>" + Td(Esc(h.label)) + TdNum(weeks(h.p50.value)) +
+           TdNum(weeks(h.p80.value)) +
+           TdNum(h.p80_saved_weeks ? StringPrintf("%.1f", *h.p80_saved_weeks) : "-") +
+           TdNum(PercentText(h.p_complete_by_deadline)) + "</tr>\n";
+  }
+  return out + StringPrintf(
+                   "</tbody>\n</table>\n<p class=\"note\">Each row repeats the same %ld "
+                   "runs and seed with one process of the plan switched off, so the "
+                   "weather is the same run by run and the difference is what that "
+                   "process costs.</p>\n</section>\n",
+                   s.runs);
+}
+
 std::string SweepSection(const HtmlReportInput& in) {
   const std::vector<StartSweepRow>& rows = in.start_sweep;
   if (rows.empty()) return "";
@@ -498,6 +525,7 @@ std::string FormatHtmlReport(const HtmlReportInput& in) {
   out += CompletionSection(in);
   out += MatrixSection(in);
   out += FillSection(in);
+  out += HoldUpsSection(in);
   out += SweepSection(in);
   out += ComparisonSection(in);
   out += DiagnosticsSection(*in.plan, *in.forecast);
