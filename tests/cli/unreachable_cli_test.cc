@@ -38,7 +38,8 @@ TEST(UnreachableCliTest, ForecastSaysWhichCellCanNeverFillAndHeldEveryRunUp) {
   const std::string reason =
       "Cell parked 10-12 m/s can never fill: a record is parked only below cut-in "
       "(3 m/s), from the restart speed (22 m/s) up after a high-wind stop, while a "
-      "curtailment stop rule applies, or during a turbine outage with "
+      "curtailment stop rule applies, during a park test (manual_tests.parking), or "
+      "during a turbine outage with "
       "outages.parked_counts_during_outage: true; none of these can happen at 10-12 "
       "m/s, where an available turbine produces.";
   // The warning comes before the simulation, on standard error.

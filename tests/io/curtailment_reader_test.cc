@@ -218,7 +218,8 @@ std::vector<BadInput> BadManualTests() {
        "plan.yaml:16:23: manual_tests.tests[0].min_interval_h: 0 is out of range; must "
        "be above 0 and at most 8760 h"},
       {"no tests", kBase + "manual_tests:\n  crew: {hours: [8, 16]}\n",
-       "plan.yaml:10:3: manual_tests.tests: required field is missing"},
+       "plan.yaml:10:3: manual_tests: has neither tests nor parking; give at least one of "
+       "them"},
       {"empty tests", kBase + "manual_tests:\n  tests: []\n",
        "plan.yaml:10:10: manual_tests.tests: is empty; give at least one test"},
   };
@@ -226,6 +227,69 @@ std::vector<BadInput> BadManualTests() {
 
 TEST(ManualTestReaderTest, RejectsBadInputWithExactMessages) {
   reader_test::ExpectMessages(BadManualTests(), PlanError);
+}
+
+// Lines 9-20: a test with a lead time and a date window, and a park test.
+const std::string kDated =
+    "manual_tests:\n"
+    "  tests:\n"
+    "    - name: emergency_stop\n"
+    "      wind_ms: [10, 14]\n"
+    "      lead_time_days: 60\n"
+    "      from: 2027-04-01\n"
+    "      to: 2027-10-01\n"
+    "  parking:\n"
+    "    - name: park_mid_wind\n"
+    "      wind_ms: [6, 18]\n"
+    "      hours: 3\n"
+    "      min_interval_h: 48\n";
+
+TEST(ManualTestReaderTest, ReadsDatesAndParkTests) {
+  const Plan plan = Parse(kBase + kDated);
+  ASSERT_EQ(plan.manual_tests.size(), 1u);
+  const ActionDates& d = plan.manual_tests[0].dates;
+  EXPECT_EQ(d.lead_time_days, 60);
+  ASSERT_TRUE(d.from && d.to);
+  EXPECT_EQ(FormatDate(*d.from), "2027-04-01");
+  EXPECT_EQ(FormatDate(*d.to), "2027-10-01");
+  ASSERT_EQ(plan.crew_parking.size(), 1u);
+  const CrewParking& p = plan.crew_parking[0];
+  EXPECT_EQ(p.name, "park_mid_wind");
+  EXPECT_DOUBLE_EQ(p.wind_lo_ms, 6);
+  EXPECT_DOUBLE_EQ(p.wind_hi_ms, 18);
+  EXPECT_DOUBLE_EQ(p.hours, 3);
+  EXPECT_DOUBLE_EQ(p.min_interval_h, 48);
+  EXPECT_EQ(p.dates.lead_time_days, 0);
+  EXPECT_FALSE(p.dates.from);
+}
+
+TEST(ManualTestReaderTest, RejectsBadDatesAndParkTestsWithExactMessages) {
+  const std::string t = kBase + kDated;
+  reader_test::ExpectMessages(
+      {
+          // Start 2027-03-01 plus 60 days is 2027-04-30: a window that closes
+          // before then holds no day.
+          {"window before the lead time", Replace(t, "to: 2027-10-01", "to: 2027-04-20"),
+           "plan.yaml:15:11: manual_tests.tests[0].to: 2027-04-20 is not after the first "
+           "day the action may be done (2027-04-30: the later of from and the campaign's "
+           "start plus lead_time_days); the window would hold no day"},
+          {"negative lead time", Replace(t, "lead_time_days: 60", "lead_time_days: -1"),
+           "plan.yaml:13:23: manual_tests.tests[0].lead_time_days: -1 is out of range; "
+           "must be at least 0 and at most 3650 days"},
+          {"park outside production",
+           Replace(t, "wind_ms: [6, 18]", "wind_ms: [0, 2]"),
+           "plan.yaml:18:16: manual_tests.parking[0].wind_ms: [0, 2] lies outside "
+           "turbine.cut_in_ms to cut_out_ms (3-25 m/s); the crew parks a producing "
+           "turbine, so it could never be done"},
+          {"park without hours", Replace(t, "      hours: 3\n", ""),
+           "plan.yaml:17:7: manual_tests.parking[0].hours: required field is missing"},
+          {"park too long", Replace(t, "hours: 3", "hours: 30"),
+           "plan.yaml:19:14: manual_tests.parking[0].hours: 30 is out of range; must be "
+           "above 0 and at most 24 h"},
+          {"empty parking", kBase + "manual_tests:\n  parking: []\n",
+           "plan.yaml:10:12: manual_tests.parking: is empty; give at least one park test"},
+      },
+      PlanError);
 }
 
 }  // namespace

@@ -72,7 +72,8 @@ TEST(ReachabilityTest, ParkedCellInMidRangeWindIsReported) {
   EXPECT_EQ(reasons[0],
             "Cell parked 10-12 m/s can never fill: a record is parked only below cut-in "
             "(3 m/s), from the restart speed (22 m/s) up after a high-wind stop, while a "
-            "curtailment stop rule applies, or during a turbine outage with "
+            "curtailment stop rule applies, during a park test (manual_tests.parking), or "
+            "during a turbine outage with "
             "outages.parked_counts_during_outage: true; none of these can happen at "
             "10-12 m/s, where an available turbine produces.");
   const Reachability r = FindUnreachableCells(ParseTestPlan(text));
@@ -94,6 +95,11 @@ TEST(ReachabilityTest, ParkedCellBecomesReachableByStopRuleOrCountedOutages) {
                    "action: stop}",
                    cells))
           .empty());
+  // A park test by the crew (manual_tests.parking).
+  EXPECT_TRUE(Reasons(With("manual_tests:\n  parking:\n    - {name: park, wind_ms: [8, 14], "
+                           "hours: 2}",
+                           cells))
+                  .empty());
   // Random turbine outages whose records count as parked.
   EXPECT_TRUE(Reasons(With("outages:\n  turbine: {mtbf_h: 400, mttr_h: 36}\n"
                            "  parked_counts_during_outage: true",

@@ -6,6 +6,7 @@
 
 #include <array>
 #include <memory>
+#include <optional>
 #include <string>
 #include <vector>
 
@@ -158,11 +159,35 @@ struct CrewSchedule {
 // at the first such opportunity, at most once per min_interval_h. Its event
 // cells (by wind range) count the tests whose record also passes the quality
 // check.
+// When a crew action may first and last be done: not before lead_time_days
+// after the campaign's start (approvals, procedures), and within [from, to)
+// when given.
+struct ActionDates {
+  int lead_time_days = 0;
+  std::optional<Date> from;
+  std::optional<Date> to;  // exclusive
+};
+
 struct ManualTest {
   std::string name;         // event type name, e.g. "emergency_stop"
   double wind_lo_ms = 0.0;  // window [lo, hi) for doing the test
   double wind_hi_ms = 1e9;
   double min_interval_h = 4.0;  // between two tests of this kind
+  ActionDates dates;
+};
+
+// A crew-initiated park (or idle) test: when the crew is on site, the turbine
+// produces normally with the wind in [wind_lo_ms, wind_hi_ms) and a parked
+// cell at that wind is still short, the crew parks the turbine from the next
+// record for `hours`, so that parked cells at mid wind speeds fill. At most
+// once per min_interval_h.
+struct CrewParking {
+  std::string name;
+  double wind_lo_ms = 0.0;
+  double wind_hi_ms = 1e9;
+  double hours = 2.0;
+  double min_interval_h = 24.0;
+  ActionDates dates;
 };
 
 // What the campaign costs, for comparing sites and scenarios.
@@ -203,6 +228,7 @@ struct Plan {
   std::vector<CurtailmentRule> curtailment;
   CrewSchedule crew;
   std::vector<ManualTest> manual_tests;
+  std::vector<CrewParking> crew_parking;  // manual_tests.parking
   // Count parked records while the turbine is out of service (false: outage
   // records are maintenance time and count for no cell).
   bool parked_counts_during_outage = false;

@@ -9,9 +9,13 @@ namespace planner {
 namespace io {
 namespace {
 
-const std::vector<std::string> kManualTestsFields = {"crew", "tests"};
+const std::vector<std::string> kManualTestsFields = {"crew", "tests", "parking"};
 const std::vector<std::string> kCrewFields = {"weekdays", "hours"};
-const std::vector<std::string> kTestFields = {"name", "wind_ms", "min_interval_h"};
+const std::vector<std::string> kTestFields = {"name", "wind_ms", "min_interval_h",
+                                              "lead_time_days", "from", "to"};
+const std::vector<std::string> kParkingFields = {
+    "name", "wind_ms", "hours", "min_interval_h", "lead_time_days", "from", "to"};
+const Limits kLeadTimeLimits = Interval("[]", 0, 3650, "days");
 // In the order of CrewSchedule::weekdays (Sunday first).
 const std::vector<std::string> kWeekdays = {"sun", "mon", "tue", "wed",
                                             "thu", "fri", "sat"};
@@ -63,7 +67,28 @@ std::string ReadTestName(const FieldMap& m, NameSet* names) {
   return name;
 }
 
-ManualTest ReadTest(const Field& f, const TurbineSpec& turbine, NameSet* names) {
+// lead_time_days, from and to of a test or a park. The window must leave at
+// least one day on which the action may be done.
+ActionDates ReadActionDates(const FieldMap& m, const Plan& plan) {
+  ActionDates d;
+  d.lead_time_days = ReadWholeNumber(m, "lead_time_days", kLeadTimeLimits, 0);
+  if (const auto from = m.Find("from")) d.from = AsDate(*from);
+  if (const auto to = m.Find("to")) {
+    d.to = AsDate(*to);
+    const Date first = AddDays(plan.start, d.lead_time_days);
+    const Date earliest = d.from && DaysBetween(first, *d.from) > 0 ? *d.from : first;
+    if (DaysBetween(earliest, *d.to) <= 0) {
+      Fail(*to, Text(*to) + " is not after the first day the action may be done (" +
+                    FormatDate(earliest) +
+                    ": the later of from and the campaign's start plus "
+                    "lead_time_days); the window would hold no day");
+    }
+  }
+  return d;
+}
+
+ManualTest ReadTest(const Field& f, const Plan& plan, NameSet* names) {
+  const TurbineSpec& turbine = plan.turbine;
   const FieldMap m(f, kTestFields);
   ManualTest test;
   test.name = ReadTestName(m, names);
@@ -80,7 +105,31 @@ ManualTest ReadTest(const Field& f, const TurbineSpec& turbine, NameSet* names) 
   }
   test.min_interval_h =
       ReadNumber(m, "min_interval_h", Interval("(]", 0, 8760, "h"), test.min_interval_h);
+  test.dates = ReadActionDates(m, plan);
   return test;
+}
+
+CrewParking ReadParking(const Field& f, const Plan& plan, NameSet* names) {
+  const FieldMap m(f, kParkingFields);
+  CrewParking p;
+  p.name = ReadName(m, "name");
+  names->Add(m.Get("name"), p.name);
+  const Field wind = m.Get("wind_ms");
+  const auto [lo, hi] = ReadWindRange(wind);
+  p.wind_lo_ms = lo;
+  p.wind_hi_ms = hi;
+  const TurbineSpec& t = plan.turbine;
+  if (hi <= t.cut_in_ms || lo >= t.cut_out_ms) {
+    Fail(wind, PairText(wind) + " lies outside turbine.cut_in_ms to cut_out_ms (" +
+                   FormatNumber(t.cut_in_ms) + "-" + FormatNumber(t.cut_out_ms) +
+                   " m/s); the crew parks a producing turbine, so it could never be "
+                   "done");
+  }
+  p.hours = ReadNumber(m, "hours", Interval("(]", 0, 24, "h"));
+  p.min_interval_h =
+      ReadNumber(m, "min_interval_h", Interval("(]", 0, 8760, "h"), p.min_interval_h);
+  p.dates = ReadActionDates(m, plan);
+  return p;
 }
 
 }  // namespace
@@ -88,12 +137,24 @@ ManualTest ReadTest(const Field& f, const TurbineSpec& turbine, NameSet* names) 
 void ReadManualTests(const Field& f, Plan* plan) {
   const FieldMap m(f, kManualTestsFields);
   if (const auto crew = m.Find("crew")) plan->crew = ReadCrew(*crew);
-  const Field tests = m.Get("tests");
-  const std::vector<Field> items = AsList(tests);
-  if (items.empty()) Fail(tests, "is empty; give at least one test");
-  NameSet names("manual test");
-  for (const Field& item : items) {
-    plan->manual_tests.push_back(ReadTest(item, plan->turbine, &names));
+  if (!m.Has("tests") && !m.Has("parking")) {
+    Fail(f, "has neither tests nor parking; give at least one of them");
+  }
+  if (const auto tests = m.Find("tests")) {
+    const std::vector<Field> items = AsList(*tests);
+    if (items.empty()) Fail(*tests, "is empty; give at least one test");
+    NameSet names("manual test");
+    for (const Field& item : items) {
+      plan->manual_tests.push_back(ReadTest(item, *plan, &names));
+    }
+  }
+  if (const auto parking = m.Find("parking")) {
+    const std::vector<Field> items = AsList(*parking);
+    if (items.empty()) Fail(*parking, "is empty; give at least one park test");
+    NameSet names("park test");
+    for (const Field& item : items) {
+      plan->crew_parking.push_back(ReadParking(item, *plan, &names));
+    }
   }
 }
 

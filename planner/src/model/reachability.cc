@@ -192,6 +192,10 @@ Analysis Analyse(const Plan& plan) {
   // under a stop rule; during a turbine outage when such records count.
   if (!a.turbine_always_down) {
     a.parked = Unite({{0.0, t.cut_in_ms}, {parked_from_ms, kInf}}, a.any_stop);
+    // A park test parks a producing turbine with the wind in its window; the
+    // wind may then move anywhere in the park's hours, so the parked records
+    // may fall at any production speed.
+    if (!plan.crew_parking.empty()) a.parked = Unite(a.parked, a.producing);
   }
   if (plan.parked_counts_during_outage && a.turbine_can_be_down) a.parked = {{0.0, kInf}};
   if (!a.producing.empty()) {
@@ -248,8 +252,9 @@ std::string RecordCellReason(const Plan& plan, const Analysis& a, const Cell& c)
   }
   return "a record is parked only below cut-in (" + SpeedText(t.cut_in_ms) +
          "), from the restart speed (" + SpeedText(t.restart_ms) +
-         ") up after a high-wind stop, while a curtailment stop rule applies, or "
-         "during a turbine outage with outages.parked_counts_during_outage: true; "
+         ") up after a high-wind stop, while a curtailment stop rule applies, "
+         "during a park test (manual_tests.parking), or during a turbine outage "
+         "with outages.parked_counts_during_outage: true; "
          "none of these can happen at " +
          range + ", where an available turbine produces";
 }

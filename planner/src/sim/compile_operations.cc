@@ -71,6 +71,34 @@ void CompileCurtailment(const Plan& plan, CompiledModel* m) {
   }
 }
 
+ActionSteps CompileActionSteps(const Plan& plan, const ActionDates& d) {
+  ActionSteps s;
+  int64_t first_day = d.lead_time_days;
+  if (d.from) first_day = std::max(first_day, DaysBetween(plan.start, *d.from));
+  s.first_step = first_day * kStepsPerDay;
+  if (d.to) s.end_step = DaysBetween(plan.start, *d.to) * kStepsPerDay;
+  return s;
+}
+
+void CompileParking(const Plan& plan, CompiledModel* m) {
+  for (const CrewParking& p : plan.crew_parking) {
+    CompiledParking cp;
+    cp.wind_lo_ms = p.wind_lo_ms;
+    cp.wind_hi_ms = p.wind_hi_ms;
+    cp.park_steps = std::max<int64_t>(1, std::llround(p.hours * kStepsPerHour));
+    cp.min_interval_steps = static_cast<int64_t>(std::ceil(p.min_interval_h * kStepsPerHour));
+    cp.steps = CompileActionSteps(plan, p.dates);
+    m->crew_parking.push_back(cp);
+    // The parked cells whose wind bin the park's window overlaps.
+    for (size_t c = 0; c < plan.matrix.cells.size(); ++c) {
+      const Cell& cell = plan.matrix.cells[c];
+      if (cell.event < 0 && cell.state == OperatingState::kParked &&
+          cell.wind_ms.hi > p.wind_lo_ms && cell.wind_ms.lo < p.wind_hi_ms)
+        m->manual_test_cell[c] = 1;
+    }
+  }
+}
+
 void CompileEvents(const Plan& plan, CompiledModel* m) {
   const CaptureMatrix& matrix = plan.matrix;
   m->events.resize(matrix.event_types.size());
@@ -104,6 +132,7 @@ void CompileEvents(const Plan& plan, CompiledModel* m) {
     ct.wind_hi_ms = t.wind_hi_ms;
     ct.min_interval_steps =
         static_cast<int64_t>(std::ceil(t.min_interval_h * kStepsPerHour));
+    ct.steps = CompileActionSteps(plan, t.dates);
     m->events[ct.event_type].manual = true;
     for (int cell : m->events[ct.event_type].cells) m->manual_test_cell[cell] = 1;
     m->manual_tests.push_back(ct);
@@ -127,6 +156,7 @@ void CompileOperations(const Plan& plan, CompiledModel* m) {
   CompilePlannedOutages(plan, m);
   CompileCurtailment(plan, m);
   CompileEvents(plan, m);
+  CompileParking(plan, m);
   CompileCrew(plan, m);
 }
 

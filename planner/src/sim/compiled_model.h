@@ -126,10 +126,25 @@ struct EventCells {
   bool manual = false;  // a manual test (scheduled), not a natural event
 };
 
+// The steps [first_step, end_step) in which a crew action may be done.
+struct ActionSteps {
+  int64_t first_step = 0;
+  int64_t end_step = INT64_MAX;
+  bool Holds(int64_t step) const { return step >= first_step && step < end_step; }
+};
+
 struct CompiledManualTest {
   int event_type = -1;  // index into CompiledModel::events
   double wind_lo_ms = 0, wind_hi_ms = 1e9;
   int64_t min_interval_steps = 0;
+  ActionSteps steps;
+};
+
+struct CompiledParking {
+  double wind_lo_ms = 0, wind_hi_ms = 1e9;
+  int64_t park_steps = 1;  // records the park lasts
+  int64_t min_interval_steps = 0;
+  ActionSteps steps;
 };
 
 inline constexpr double kProbabilityScale = 65536.0;
@@ -191,8 +206,11 @@ struct CompiledModel {
   int start_up_event = -1;  // index into events, -1 if no such cells
   int normal_stop_event = -1;
   std::vector<CompiledManualTest> manual_tests;
+  std::vector<CompiledParking> crew_parking;
   uint32_t crew_hour_mask = 0;            // bit h: crew on site during hour h
-  std::vector<uint8_t> manual_test_cell;  // per cell: 1 if it counts a manual test
+  // Per cell: 1 if a crew action can fill it (a manual test's event cell, or
+  // a parked cell a park test can reach).
+  std::vector<uint8_t> manual_test_cell;
 
   // Matrix.
   std::array<CompiledGrid, kOperatingStateCount> grids;

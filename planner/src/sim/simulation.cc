@@ -7,6 +7,7 @@
 #include "planner/calendar.h"
 #include "planner/random_stream.h"
 #include "sim/compiled_model.h"
+#include "sim/crew_actions.h"
 #include "sim/day_weather.h"
 #include "sim/outage_windows.h"
 #include "sim/ziggurat_normal.h"
@@ -90,6 +91,10 @@ struct RunState {
   // Set once per hour.
   uint32_t hour_rules = 0;  // curtailment rules in force this month and hour
   bool crew_here = false;
+  // A park test: the crew parks the turbine for the steps [park_from,
+  // park_end) (INT64_MAX: none pending); crew_parked while it lasts.
+  bool crew_parked = false;
+  int64_t park_from = INT64_MAX, park_end = INT64_MAX;
   int remaining = 0;   // required cells not yet full
   int tests_open = 0;  // manual-test cells not yet full
   // First step at which the loop must look at the deadline, the horizon or a
@@ -138,7 +143,7 @@ class RunLoop {
         shutdown_(m.shutdown, MakeRunEngine(seed ^ kShutdownSalt, run)),
         channels_(m.channel_groups, ChannelEngines(m, seed, run), m.day_month.data(),
                   static_cast<int64_t>(m.day_month.size())),
-        last_test_(m.manual_tests.size(), INT64_MIN / 2),
+        crew_(m),
         out_(out) {
     for (size_t e = 0; e < m.episodes.size(); ++e) {
       episodes_.emplace_back(m.episodes[e], MakeRunEngine(seed ^ (kEpisodeSalt + e), run),
@@ -211,7 +216,11 @@ class RunLoop {
   Curtail CurtailmentAt(double speed_ms, uint32_t rules) const;
   void OnTransition(bool producing, double speed_ms, bool valid, int64_t step,
                     RunState& s);
-  bool TryManualTest(double speed_ms, bool valid, int64_t step, RunState& s);
+  // What TryManualTest did: nothing; a manual test in this record (a
+  // transient, not a production record); or a park test that starts with the
+  // next record (this one counts as usual).
+  enum CrewOutcome : int { kNoAction = 0, kTestRecord = 1, kParkNext = 2 };
+  int TryManualTest(double speed_ms, bool valid, int64_t step, RunState& s);
   int CountEvent(int type, double speed_ms, int64_t step, RunState& s);
   template <bool kReplay>
   int CellOf(int state, double speed_ms, const DayWeather& weather, int k,
@@ -241,7 +250,7 @@ class RunLoop {
   HighWindShutdown shutdown_;
   std::vector<EpisodeProcess> episodes_;
   ChannelGroups channels_;
-  std::vector<int64_t> last_test_;  // per manual test: step it was last done
+  CrewActions crew_;
   ZigguratNormal normal_;
   RunResult* out_;
   std::vector<double> year_factor_;  // per campaign year
@@ -491,26 +500,26 @@ inline int RunLoop::CountEvent(int type, double speed_ms, int64_t step, RunState
 }
 
 // The crew is on site, the turbine produces normally and the record would be
-// valid but for the quality check: do the first test whose wind window holds,
-// whose interval has passed and whose cell at this speed is not yet full.
-[[gnu::noinline, gnu::cold]] bool RunLoop::TryManualTest(double speed_ms, bool valid,
-                                                         int64_t step, RunState& s) {
-  for (size_t t = 0; t < m_.manual_tests.size(); ++t) {
-    const CompiledManualTest& test = m_.manual_tests[t];
-    if (speed_ms < test.wind_lo_ms || speed_ms >= test.wind_hi_ms) continue;
-    if (step - last_test_[t] < test.min_interval_steps) continue;
-    const EventCells& e = m_.events[test.event_type];
-    const int i = e.wind.Find(speed_ms);
-    if (i < 0 || counts_[e.cells[i]] >= m_.required[e.cells[i]]) continue;
-    last_test_[t] = step;
-    const bool counts = valid && ChannelsUp(e.cells[i], s);
-    if (counts) Count(e.cells[i], step, s);
-    if (trace_ != nullptr)
-      traced_event_type_ = test.event_type, traced_event_cell_ = counts ? e.cells[i] : -1;
-    s.producing = false;  // the test stopped the turbine: next comes a start-up
-    return true;
+// valid but for the quality check: the crew unit (sim/crew_actions.h) says
+// whether a manual test is done in this record or a park test starts with
+// the next one.
+[[gnu::noinline, gnu::cold]] int RunLoop::TryManualTest(double speed_ms, bool valid,
+                                                        int64_t step, RunState& s) {
+  if (s.park_from != INT64_MAX) return kNoAction;  // a park is pending or on
+  const CrewAction a = crew_.Next(speed_ms, step, counts_);
+  if (a.kind == CrewAction::Kind::kPark) {
+    s.park_from = step + 1;
+    s.park_end = step + 1 + a.park_steps;
+    s.next_event = std::min(s.next_event, s.park_from);
+    return kParkNext;
   }
-  return false;
+  if (a.kind != CrewAction::Kind::kTest) return kNoAction;
+  const bool counts = valid && ChannelsUp(a.cell, s);
+  if (counts) Count(a.cell, step, s);
+  if (trace_ != nullptr)
+    traced_event_type_ = a.event_type, traced_event_cell_ = counts ? a.cell : -1;
+  s.producing = false;  // the test stopped the turbine: next comes a start-up
+  return kTestRecord;
 }
 
 // One 10-minute record: the turbine's state and what the record counts, from
@@ -526,6 +535,7 @@ inline void RunLoop::Step(int64_t step, int k, const DayWeather& w, const StepLi
     curtail = CurtailmentAt(speed, rules);
     day.curtailed_steps += curtail != kNotCurtailed;
   }
+  if (s.crew_parked) [[unlikely]] curtail = kStop;
   if (speed >= lim.attention_ms || day.high_wind_stop) {
     day.high_wind_stop = HighWind(day.high_wind_stop, speed,
                                   s.turbine_up && curtail != kStop, step, w, k, s);
@@ -541,8 +551,10 @@ inline void RunLoop::Step(int64_t step, int k, const DayWeather& w, const StepLi
   if (s.recordable) {
     // (Not in the record in which production started: a test waits for the
     // next one, so that a record carries at most one event.)
-    if (s.tests_open > 0 && s.crew_here && producing && !transition &&
-        state == 0 && TryManualTest(speed, quality_ok, step, s)) {
+    int crew = kNoAction;
+    if (s.tests_open > 0 && s.crew_here && producing && !transition && state == 0)
+      crew = TryManualTest(speed, quality_ok, step, s);
+    if (crew == kTestRecord) {
       // A test record is a transient, not a production record.
       if constexpr (kTrace) Trace(step, speed, state, quality_ok, true, -1, s);
       if (s.recalibrating) ObserveChannels(speed, step, s);
@@ -687,10 +699,17 @@ int RunLoop::PlainStretch(int k, int end, int64_t day_step, const DayWeather& w,
     speed_sum_ms += speed;
     if constexpr (kCounting) {
       const int64_t step = day_step + k;
-      if (tests_possible && producing &&
-          TryManualTest(speed, w.quality_ok[k], step, s)) {
-        ++k;
-        break;
+      if (tests_possible && producing) {
+        if (const int crew = TryManualTest(speed, w.quality_ok[k], step, s); crew) {
+          // A test record counts for no record cell; the record before a
+          // park test counts as usual, then the full step takes over.
+          if (crew == kParkNext && w.quality_ok[k]) {
+            const int cell = CellOf<kReplay>(0, speed, w, k, step, s);
+            if (cell >= 0) Count(cell, step, s);
+          }
+          ++k;
+          break;
+        }
       }
       if (!w.quality_ok[k]) continue;
       const int cell = CellOf<kReplay>(producing ? 0 : 1, speed, w, k, step, s);
@@ -776,7 +795,7 @@ void RunLoop::RunSteps(int64_t first_day, int64_t step, RunState& s, WeatherStat
         // (An outage state may be due again at once: then no stretch.)
         const int end = static_cast<int>(std::min<int64_t>(
             plain_end[hour] * kStepsPerHour, s.next_event - day_step));
-        if (!kTrace && s.hour_rules == 0 && end > k) {
+        if (!kTrace && s.hour_rules == 0 && !s.crew_parked && end > k) {
           k = Stretch<kReplay>(k, end, day_step, w, lim, tallies, s);
           break;  // k may be hours on: set the hour's rules and crew anew
         }
@@ -809,7 +828,12 @@ void RunLoop::RunSteps(int64_t first_day, int64_t step, RunState& s, WeatherStat
     ++change;
   }
   if (step >= s.next_outage_step) UpdateOutages(step, s);
-  s.next_event = std::min({s.checkpoint, s.next_outage_step, day_step + change->k});
+  if (step >= s.park_from) {  // a park test starts or ends
+    s.crew_parked = step < s.park_end;
+    if (!s.crew_parked) s.park_from = s.park_end = INT64_MAX;
+  }
+  s.next_event = std::min({s.checkpoint, s.next_outage_step, day_step + change->k,
+                           s.crew_parked ? s.park_end : s.park_from});
   return true;
 }
 
