@@ -51,26 +51,6 @@ void CompilePlannedOutages(const Plan& plan, CompiledModel* m) {
   m->planned_daq = Merge(daq);
 }
 
-void CompileCurtailment(const Plan& plan, CompiledModel* m) {
-  const size_t rules = std::min<size_t>(plan.curtailment.size(), kMaxCurtailmentRules);
-  for (size_t r = 0; r < rules; ++r) {
-    const CurtailmentRule& rule = plan.curtailment[r];
-    m->curtailment.push_back({rule.wind_lo_ms, rule.wind_hi_ms,
-                              rule.action == CurtailmentRule::Action::kReduce,
-                              rule.directions});
-    const uint32_t hours = HourMask(rule.hours);
-    for (int month = 1; month <= 12; ++month) {
-      const bool in_month =
-          rule.months.empty() ||
-          std::find(rule.months.begin(), rule.months.end(), month) != rule.months.end();
-      if (!in_month) continue;
-      for (int h = 0; h < 24; ++h) {
-        if (hours & (1u << h)) m->curtail_time_mask[month - 1][h] |= 1u << r;
-      }
-    }
-  }
-}
-
 ActionSteps CompileActionSteps(const Plan& plan, const ActionDates& d) {
   ActionSteps s;
   int64_t first_day = d.lead_time_days;
@@ -154,7 +134,7 @@ void CompileCrew(const Plan& plan, CompiledModel* m) {
 
 void CompileOperations(const Plan& plan, CompiledModel* m) {
   CompilePlannedOutages(plan, m);
-  CompileCurtailment(plan, m);
+  m->curtailment = CurtailmentRules(plan.curtailment);
   CompileEvents(plan, m);
   CompileParking(plan, m);
   CompileCrew(plan, m);

@@ -14,6 +14,7 @@
 #include "planner/turbulence.h"
 #include "sim/bin_lookup.h"
 #include "sim/channel_groups.h"
+#include "sim/curtailment_rules.h"
 #include "sim/episode_process.h"
 #include "sim/high_wind_shutdown.h"
 #include "sim/renewal_process.h"
@@ -111,14 +112,6 @@ struct StepInterval {
   int64_t to = 0;
 };
 
-// A curtailment rule as the loop tests it; when and where it may apply is in
-// CompiledModel::curtail_time_mask and the per-direction masks.
-struct CompiledCurtailment {
-  double wind_lo_ms = 0, wind_hi_ms = 1e9;
-  bool reduce = false;                 // false: stop
-  std::vector<AngleRange> directions;  // empty = all
-};
-
 // Event cells of one event type: wind bins -> cell index.
 struct EventCells {
   BinLookup wind;
@@ -148,9 +141,6 @@ struct CompiledParking {
 };
 
 inline constexpr double kProbabilityScale = 65536.0;
-
-// At most this many curtailment rules (bits of a mask); the reader checks.
-inline constexpr int kMaxCurtailmentRules = 32;
 
 struct CompiledModel {
   // Weather.
@@ -197,9 +187,7 @@ struct CompiledModel {
   uint32_t keep_threshold = 0;
   uint32_t reject_threshold = 0;
 
-  // Curtailment: rules, and per (month, hour) the bit mask of rules in force.
-  std::vector<CompiledCurtailment> curtailment;
-  std::array<std::array<uint32_t, 24>, 12> curtail_time_mask{};
+  CurtailmentRules curtailment;
 
   // Events: per event type (CaptureMatrix::event_types order) its cells.
   std::vector<EventCells> events;

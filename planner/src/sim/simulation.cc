@@ -41,9 +41,6 @@ inline bool InSpans(const std::vector<Bin>& spans, double u) {
   return false;
 }
 
-// Curtailment outcome of a step.
-enum Curtail : int { kNotCurtailed = 0, kReduce = 1, kStop = 2 };
-
 // The model's per-step limits, copied into a local of the day loop so that
 // they stay in registers (stores through RunState could otherwise alias them).
 struct StepLimits {
@@ -74,9 +71,10 @@ struct RunState {
   double direction_u = 0;  // position within the sector, [0, 1)
   // Cached for the current direction.
   bool sector_ok = false;
-  // daq_up && sector_ok && !records_void, and no channel group that every
-  // cell needs is down (RunLoop::Recordable)
+  // sector_ok && records_ok (RunLoop::SetRecordable)
   bool recordable = false;
+  // daq_up && !records_void, and no channel group down that every cell needs
+  bool records_ok = true;
   uint32_t direction_rules = 0;  // curtailment rules whose direction holds
   double x_ti = 0;  // latent TI normal at step ti_step
   int64_t ti_step = 0;
@@ -190,11 +188,12 @@ class RunLoop {
   int PlainStretch(int k, int end, int64_t day_step, const DayWeather& w,
                    const StepLimits& lim, DayTallies& day, RunState& s,
                    bool* transition);
-  uint32_t DirectionRules(int sector, double direction_u) const;
   void UpdateOutages(int64_t step, RunState& s);
-  bool Recordable(const RunState& s) const {
-    return s.daq_up && s.sector_ok && !s.records_void &&
-           (s.channels_down & m_.channels_every_cell_needs) == 0;
+  // After an outage, episode or channel state changed.
+  void SetRecordable(RunState& s) const {
+    s.records_ok = s.daq_up && !s.records_void &&
+                   (s.channels_down & m_.channels_every_cell_needs) == 0;
+    s.recordable = s.sector_ok && s.records_ok;
   }
   // Whether the channel groups `cell` needs are up.
   bool ChannelsUp(int cell, const RunState& s) const {
@@ -213,7 +212,6 @@ class RunLoop {
                 const DayWeather& w, int k, RunState& s);
   double RecordLogTi(double speed_ms, int64_t step, const DayWeather& w, int k,
                      RunState& s);
-  Curtail CurtailmentAt(double speed_ms, uint32_t rules) const;
   void OnTransition(bool producing, double speed_ms, bool valid, int64_t step,
                     RunState& s);
   // What TryManualTest did: nothing; a manual test in this record (a
@@ -359,19 +357,6 @@ inline int RunLoop::CellOf(int state, double speed_ms, const DayWeather& weather
   return t < 0 ? -1 : g.cell_index[w * ti_bins + t];
 }
 
-uint32_t RunLoop::DirectionRules(int sector, double direction_u) const {
-  const double direction_deg = (sector - 0.5 + direction_u) * m_.sector_width_deg;
-  uint32_t mask = 0;
-  for (size_t r = 0; r < m_.curtailment.size(); ++r) {
-    const std::vector<AngleRange>& dirs = m_.curtailment[r].directions;
-    bool inside = dirs.empty();
-    for (const AngleRange& a : dirs)
-      inside = inside || AngleRangeContains(a, direction_deg);
-    if (inside) mask |= 1u << r;
-  }
-  return mask;
-}
-
 // The direction from `step` on.
 inline void RunLoop::SetDirection(int sector, double direction_u, int64_t step,
                                   RunState& s) const {
@@ -380,9 +365,11 @@ inline void RunLoop::SetDirection(int sector, double direction_u, int64_t step,
   s.sector = sector;
   s.direction_u = direction_u;
   s.sector_ok = InSpans(m_.sector_valid_spans[s.sector], s.direction_u);
-  s.recordable = Recordable(s);
-  if (!m_.curtailment.empty())
-    s.direction_rules = DirectionRules(s.sector, s.direction_u);
+  s.recordable = s.sector_ok && s.records_ok;
+  if (!m_.curtailment.empty()) {
+    s.direction_rules = m_.curtailment.ForDirection((s.sector - 0.5 + s.direction_u) *
+                                                    m_.sector_width_deg);
+  }
 }
 
 // The outage states from `step` on.
@@ -413,7 +400,13 @@ inline void RunLoop::SetDirection(int sector, double direction_u, int64_t step,
     s.next_outage_step = std::min(s.next_outage_step, channels_.NextChangeStep());
     SetChannels(step, s);
   }
-  s.recordable = Recordable(s);
+  if (step >= s.park_from) {  // a park test starts or ends
+    s.crew_parked = step < s.park_end;
+    if (!s.crew_parked) s.park_from = s.park_end = INT64_MAX;
+  }
+  s.next_outage_step =
+      std::min(s.next_outage_step, s.crew_parked ? s.park_end : s.park_from);
+  SetRecordable(s);
 }
 
 // The channel groups' states from `step` on.
@@ -431,7 +424,7 @@ void RunLoop::SetChannels(int64_t step, RunState& s) {
                                                            RunState& s) {
   if (!channels_.Observe(speed_ms, s.crew_here)) return;
   SetChannels(step + 1, s);
-  s.recordable = Recordable(s);
+  SetRecordable(s);
   s.next_event = std::min(s.next_event, step + 1);
 }
 
@@ -461,19 +454,6 @@ double RunLoop::RecordLogTi(double speed_ms, int64_t step, const DayWeather& w, 
       std::isnan(measured) ? m_.ti_law.LogSample(speed_ms, s.x_ti) : measured;
   if (trace_ != nullptr) traced_ti_ = std::exp(log_ti), traced_ti_step_ = step;
   return log_ti;
-}
-
-// Stop wins over reduce when several rules apply.
-Curtail RunLoop::CurtailmentAt(double speed_ms, uint32_t rules) const {
-  Curtail result = kNotCurtailed;
-  for (size_t r = 0; rules != 0; ++r, rules >>= 1) {
-    if (!(rules & 1u)) continue;
-    const CompiledCurtailment& c = m_.curtailment[r];
-    if (speed_ms < c.wind_lo_ms || speed_ms >= c.wind_hi_ms) continue;
-    if (!c.reduce) return kStop;
-    result = kReduce;
-  }
-  return result;
 }
 
 // Returns the event cell counted, -1 if none.
@@ -508,8 +488,10 @@ inline int RunLoop::CountEvent(int type, double speed_ms, int64_t step, RunState
   if (s.park_from != INT64_MAX) return kNoAction;  // a park is pending or on
   const CrewAction a = crew_.Next(speed_ms, step, counts_);
   if (a.kind == CrewAction::Kind::kPark) {
+    // (The park starts and ends as the outage states change: UpdateOutages.)
     s.park_from = step + 1;
     s.park_end = step + 1 + a.park_steps;
+    s.next_outage_step = std::min(s.next_outage_step, s.park_from);
     s.next_event = std::min(s.next_event, s.park_from);
     return kParkNext;
   }
@@ -532,7 +514,7 @@ inline void RunLoop::Step(int64_t step, int k, const DayWeather& w, const StepLi
 
   Curtail curtail = kNotCurtailed;
   if (const uint32_t rules = s.hour_rules & s.direction_rules; rules != 0) {
-    curtail = CurtailmentAt(speed, rules);
+    curtail = m_.curtailment.At(speed, rules);
     day.curtailed_steps += curtail != kNotCurtailed;
   }
   if (s.crew_parked) [[unlikely]] curtail = kStop;
@@ -551,10 +533,8 @@ inline void RunLoop::Step(int64_t step, int k, const DayWeather& w, const StepLi
   if (s.recordable) {
     // (Not in the record in which production started: a test waits for the
     // next one, so that a record carries at most one event.)
-    int crew = kNoAction;
-    if (s.tests_open > 0 && s.crew_here && producing && !transition && state == 0)
-      crew = TryManualTest(speed, quality_ok, step, s);
-    if (crew == kTestRecord) {
+    if (s.tests_open > 0 && s.crew_here && producing && !transition &&
+        state == 0 && TryManualTest(speed, quality_ok, step, s) == kTestRecord) {
       // A test record is a transient, not a production record.
       if constexpr (kTrace) Trace(step, speed, state, quality_ok, true, -1, s);
       if (s.recalibrating) ObserveChannels(speed, step, s);
@@ -696,21 +676,20 @@ int RunLoop::PlainStretch(int k, int end, int64_t day_step, const DayWeather& w,
       *transition = true;
       break;
     }
-    speed_sum_ms += speed;
     if constexpr (kCounting) {
-      const int64_t step = day_step + k;
+      // A test record is done. Before a park test this record is worked
+      // again as usual (the crew unit, with the park pending, does nothing
+      // then) and the stretch ends there.
       if (tests_possible && producing) {
-        if (const int crew = TryManualTest(speed, w.quality_ok[k], step, s); crew) {
-          // A test record counts for no record cell; the record before a
-          // park test counts as usual, then the full step takes over.
-          if (crew == kParkNext && w.quality_ok[k]) {
-            const int cell = CellOf<kReplay>(0, speed, w, k, step, s);
-            if (cell >= 0) Count(cell, step, s);
-          }
-          ++k;
+        if (const int crew = TryManualTest(speed, w.quality_ok[k], day_step + k, s)) {
+          if (crew == kTestRecord) speed_sum_ms += speed, ++k;
           break;
         }
       }
+    }
+    speed_sum_ms += speed;
+    if constexpr (kCounting) {
+      const int64_t step = day_step + k;
       if (!w.quality_ok[k]) continue;
       const int cell = CellOf<kReplay>(producing ? 0 : 1, speed, w, k, step, s);
       if (cell >= 0 && Count(cell, step, s)) {
@@ -777,14 +756,14 @@ void RunLoop::RunSteps(int64_t first_day, int64_t step, RunState& s, WeatherStat
     for (int h = 22; h >= 0; --h) {
       const bool same_crew = ((m_.crew_hour_mask >> h) & 1u) ==
                              ((m_.crew_hour_mask >> (h + 1)) & 1u);
-      plain_end[h] = m_.curtail_time_mask[month][h + 1] == 0 && (same_crew || !crew_day)
+      plain_end[h] = m_.curtailment.InForce(month, h + 1) == 0 && (same_crew || !crew_day)
                          ? plain_end[h + 1]
                          : h + 1;
     }
     DayTallies tallies(s);
     for (int k = 0; k < kStepsPerDay;) {
       const int hour = k / kStepsPerHour;
-      s.hour_rules = m_.curtail_time_mask[month][hour];
+      s.hour_rules = m_.curtailment.InForce(month, hour);
       s.crew_here = crew_day && ((m_.crew_hour_mask >> hour) & 1u);
       for (const int hour_end = k - k % kStepsPerHour + kStepsPerHour; k < hour_end;) {
         step = day_step + k;
@@ -828,12 +807,7 @@ void RunLoop::RunSteps(int64_t first_day, int64_t step, RunState& s, WeatherStat
     ++change;
   }
   if (step >= s.next_outage_step) UpdateOutages(step, s);
-  if (step >= s.park_from) {  // a park test starts or ends
-    s.crew_parked = step < s.park_end;
-    if (!s.crew_parked) s.park_from = s.park_end = INT64_MAX;
-  }
-  s.next_event = std::min({s.checkpoint, s.next_outage_step, day_step + change->k,
-                           s.crew_parked ? s.park_end : s.park_from});
+  s.next_event = std::min({s.checkpoint, s.next_outage_step, day_step + change->k});
   return true;
 }
 
