@@ -157,7 +157,9 @@ class RunLoop {
   std::vector<TracedRecord>* trace_ = nullptr;  // tests only: every record
 
  private:
-  template <bool kTrace, bool kReplay>
+  // kExtras: the plan has load-channel groups or park tests (the loop's
+  // checks for them are compiled out otherwise, docs/performance.md).
+  template <bool kTrace, bool kReplay, bool kExtras>
   void RunSteps(int64_t first_day, int64_t step, RunState& s, WeatherState& ws,
                 Engine& weather);
   bool OnEvents(int64_t step, int64_t day_step, const DirectionChange*& change,
@@ -178,13 +180,13 @@ class RunLoop {
   void SetDirection(int sector, double direction_u, int64_t step, RunState& s) const;
   RunState Start(uint64_t direction_bits);
   void DrawYearFactors();
-  template <bool kTrace, bool kReplay>
+  template <bool kTrace, bool kReplay, bool kExtras>
   void Step(int64_t step, int k, const DayWeather& w, const StepLimits& lim,
             DayTallies& day, RunState& s);
-  template <bool kReplay>
+  template <bool kReplay, bool kExtras>
   int Stretch(int k, int end, int64_t day_step, const DayWeather& w,
               const StepLimits& lim, DayTallies& day, RunState& s);
-  template <bool kCounting, bool kReplay>
+  template <bool kCounting, bool kReplay, bool kExtras>
   int PlainStretch(int k, int end, int64_t day_step, const DayWeather& w,
                    const StepLimits& lim, DayTallies& day, RunState& s,
                    bool* transition);
@@ -506,7 +508,7 @@ inline int RunLoop::CountEvent(int type, double speed_ms, int64_t step, RunState
 
 // One 10-minute record: the turbine's state and what the record counts, from
 // the day's weather (FillWeather / FillReplay).
-template <bool kTrace, bool kReplay>
+template <bool kTrace, bool kReplay, bool kExtras>
 inline void RunLoop::Step(int64_t step, int k, const DayWeather& w, const StepLimits& lim,
                           DayTallies& day, RunState& s) {
   const double speed = w.speed_ms[k];
@@ -517,7 +519,9 @@ inline void RunLoop::Step(int64_t step, int k, const DayWeather& w, const StepLi
     curtail = m_.curtailment.At(speed, rules);
     day.curtailed_steps += curtail != kNotCurtailed;
   }
-  if (s.crew_parked) [[unlikely]] curtail = kStop;
+  if constexpr (kExtras) {
+    if (s.crew_parked) curtail = kStop;
+  }
   if (speed >= lim.attention_ms || day.high_wind_stop) {
     day.high_wind_stop = HighWind(day.high_wind_stop, speed,
                                   s.turbine_up && curtail != kStop, step, w, k, s);
@@ -537,20 +541,23 @@ inline void RunLoop::Step(int64_t step, int k, const DayWeather& w, const StepLi
         state == 0 && TryManualTest(speed, quality_ok, step, s) == kTestRecord) {
       // A test record is a transient, not a production record.
       if constexpr (kTrace) Trace(step, speed, state, quality_ok, true, -1, s);
-      if (s.recalibrating) ObserveChannels(speed, step, s);
+      if constexpr (kExtras) {
+        if (s.recalibrating) ObserveChannels(speed, step, s);
+      }
       return;
     }
     if (quality_ok && (producing || s.turbine_up || lim.parked_counts_during_outage)) {
       cell = CellOf<kReplay>(state, speed, w, k, step, s);
-      if (cell >= 0 && (s.channels_down == 0 || ChannelsUp(cell, s))) {
-        Count(cell, step, s);
-      } else {
-        cell = -1;
+      if constexpr (kExtras) {
+        if (cell >= 0 && s.channels_down != 0 && !ChannelsUp(cell, s)) cell = -1;
       }
+      if (cell >= 0) Count(cell, step, s);
     }
   }
   if constexpr (kTrace) Trace(step, speed, state, quality_ok, false, cell, s);
-  if (s.recalibrating) ObserveChannels(speed, step, s);
+  if constexpr (kExtras) {
+    if (s.recalibrating) ObserveChannels(speed, step, s);
+  }
 }
 
 void RunLoop::Trace(int64_t step, double speed_ms, int state, bool quality_ok,
@@ -637,12 +644,16 @@ void RunLoop::Run(const CampaignState* state) {
   ws.transform = &m_.speed_transform[s.sector];
   s.checkpoint = step;
   const bool replay = m_.replay != nullptr;
+  const bool extras = !m_.channel_groups.empty() || !m_.crew_parking.empty();
   if (trace_ != nullptr) {
-    replay ? RunSteps<true, true>(first_day, step, s, ws, weather)
-           : RunSteps<true, false>(first_day, step, s, ws, weather);
+    replay ? RunSteps<true, true, true>(first_day, step, s, ws, weather)
+           : RunSteps<true, false, true>(first_day, step, s, ws, weather);
+  } else if (extras) {
+    replay ? RunSteps<false, true, true>(first_day, step, s, ws, weather)
+           : RunSteps<false, false, true>(first_day, step, s, ws, weather);
   } else {
-    replay ? RunSteps<false, true>(first_day, step, s, ws, weather)
-           : RunSteps<false, false>(first_day, step, s, ws, weather);
+    replay ? RunSteps<false, true, false>(first_day, step, s, ws, weather)
+           : RunSteps<false, false, false>(first_day, step, s, ws, weather);
   }
 }
 
@@ -658,7 +669,7 @@ void RunLoop::Run(const CampaignState* state) {
 // starts or stops (for Step to do; *transition is then true), or the step
 // after a manual test or a cell reaching a mark (so that what is due is
 // looked at again).
-template <bool kCounting, bool kReplay>
+template <bool kCounting, bool kReplay, bool kExtras>
 int RunLoop::PlainStretch(int k, int end, int64_t day_step, const DayWeather& w,
                           const StepLimits& lim, DayTallies& day, RunState& s,
                           bool* transition) {
@@ -676,7 +687,7 @@ int RunLoop::PlainStretch(int k, int end, int64_t day_step, const DayWeather& w,
       *transition = true;
       break;
     }
-    if constexpr (kCounting) {
+    if constexpr (kCounting && kExtras) {
       // A test record is done. Before a park test this record is worked
       // again as usual (the crew unit, with the park pending, does nothing
       // then) and the stretch ends there.
@@ -690,6 +701,12 @@ int RunLoop::PlainStretch(int k, int end, int64_t day_step, const DayWeather& w,
     speed_sum_ms += speed;
     if constexpr (kCounting) {
       const int64_t step = day_step + k;
+      if constexpr (!kExtras) {  // (no park tests: a crew action is a test record)
+        if (tests_possible && producing && TryManualTest(speed, w.quality_ok[k], step, s)) {
+          ++k;
+          break;
+        }
+      }
       if (!w.quality_ok[k]) continue;
       const int cell = CellOf<kReplay>(producing ? 0 : 1, speed, w, k, step, s);
       if (cell >= 0 && Count(cell, step, s)) {
@@ -706,30 +723,31 @@ int RunLoop::PlainStretch(int k, int end, int64_t day_step, const DayWeather& w,
 // (where the crew's presence or the rules change, or something is due): the
 // plain loop that fits the outage and direction states, then the full step
 // where it stopped at a production start or stop. Returns the next step.
-template <bool kReplay>
+template <bool kReplay, bool kExtras>
 int RunLoop::Stretch(int k, int end, int64_t day_step, const DayWeather& w,
                      const StepLimits& lim, DayTallies& day, RunState& s) {
   bool transition = false;
-  if (s.recordable && s.turbine_up && s.channels_down == 0) {
-    k = PlainStretch<true, kReplay>(k, end, day_step, w, lim, day, s, &transition);
-  } else if (!s.recalibrating &&
+  if (s.recordable && s.turbine_up && (!kExtras || s.channels_down == 0)) {
+    k = PlainStretch<true, kReplay, kExtras>(k, end, day_step, w, lim, day, s, &transition);
+  } else if ((!kExtras || !s.recalibrating) &&
              (!s.recordable || (!s.turbine_up && !lim.parked_counts_during_outage))) {
-    k = PlainStretch<false, kReplay>(k, end, day_step, w, lim, day, s, &transition);
+    k = PlainStretch<false, kReplay, kExtras>(k, end, day_step, w, lim, day, s,
+                                              &transition);
   } else {
     // The full steps: the turbine down with parked records counted, a channel
     // group down that some cells do not need, or one waiting for its
     // recalibration (until something is due: a count may complete the matrix)
     for (; k < end && day_step + k < s.next_event; ++k)
-      Step<false, kReplay>(day_step + k, k, w, lim, day, s);
+      Step<false, kReplay, kExtras>(day_step + k, k, w, lim, day, s);
   }
   if (transition) {  // a production start or stop: the full step
-    Step<false, kReplay>(day_step + k, k, w, lim, day, s);
+    Step<false, kReplay, kExtras>(day_step + k, k, w, lim, day, s);
     ++k;
   }
   return k;
 }
 
-template <bool kTrace, bool kReplay>
+template <bool kTrace, bool kReplay, bool kExtras>
 void RunLoop::RunSteps(int64_t first_day, int64_t step, RunState& s, WeatherState& ws,
                        Engine& weather) {
   const int64_t days = static_cast<int64_t>(m_.day_month.size());
@@ -774,11 +792,11 @@ void RunLoop::RunSteps(int64_t first_day, int64_t step, RunState& s, WeatherStat
         // (An outage state may be due again at once: then no stretch.)
         const int end = static_cast<int>(std::min<int64_t>(
             plain_end[hour] * kStepsPerHour, s.next_event - day_step));
-        if (!kTrace && s.hour_rules == 0 && !s.crew_parked && end > k) {
-          k = Stretch<kReplay>(k, end, day_step, w, lim, tallies, s);
+        if (!kTrace && s.hour_rules == 0 && (!kExtras || !s.crew_parked) && end > k) {
+          k = Stretch<kReplay, kExtras>(k, end, day_step, w, lim, tallies, s);
           break;  // k may be hours on: set the hour's rules and crew anew
         }
-        Step<kTrace, kReplay>(step, k, w, lim, tallies, s);
+        Step<kTrace, kReplay, kExtras>(step, k, w, lim, tallies, s);
         ++k;
       }
     }
