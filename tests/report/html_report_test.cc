@@ -302,3 +302,32 @@ TEST(HtmlReportTest, PrintsWithoutDarkBackgroundsAndWithPageBreaks) {
 
 }  // namespace
 }  // namespace planner
+
+namespace planner {
+namespace {
+
+// "What holds the campaign up" appears only when the forecast carries it,
+// with one row per process switched off (label escaped, weeks saved), and the
+// text summary has the same rows.
+TEST(HtmlReportTest, HoldUpsSectionOnlyWithHoldUps) {
+  Report r;
+  EXPECT_EQ(r.Html().find("id=\"hold-ups\""), std::string::npos);
+  HoldUp h;
+  h.key = "episode:icing";
+  h.label = "icing <episodes>";
+  h.p80.value = 40.0;
+  h.p50.value = 30.0;
+  h.p80_saved_weeks = 2.5;
+  h.p_complete_by_deadline = 0.4;
+  r.summary.hold_ups = {h};
+  const std::string html = r.Html();
+  EXPECT_NE(html.find("id=\"hold-ups\""), std::string::npos);
+  EXPECT_NE(html.find("icing &lt;episodes&gt;"), std::string::npos);
+  EXPECT_NE(html.find(">2.5<"), std::string::npos);
+  const std::string text = FormatForecastText(r.plan, r.summary, TestContext());
+  EXPECT_NE(text.find("What holds the campaign up"), std::string::npos);
+  EXPECT_NE(text.find("icing <episodes>"), std::string::npos);
+}
+
+}  // namespace
+}  // namespace planner
