@@ -41,8 +41,7 @@ CurtailmentRule::Action ReadAction(const Field& f) {
 CurtailmentRule ReadRule(const Field& f, NameSet* names) {
   const FieldMap m(f, kRuleFields);
   CurtailmentRule rule;
-  rule.name = ReadName(m, "name");
-  names->Add(m.Get("name"), rule.name);
+  rule.name = names->Read(m);
   if (const auto months = m.Find("months")) rule.months = ReadMonths(*months);
   if (const auto hours = m.Find("hours")) rule.hours = ReadHourWindow(*hours);
   if (const auto wind = m.Find("wind_ms")) {

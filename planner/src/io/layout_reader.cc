@@ -115,8 +115,7 @@ NeighbourTurbine ReadNeighbour(const Field& f, const std::optional<Point>& mast,
                                NameSet* names) {
   const FieldMap m(f, kNeighbourFields);
   NeighbourTurbine n;
-  n.name = ReadName(m, "name");
-  names->Add(m.Get("name"), n.name);
+  n.name = names->Read(m);
   const Position p = ReadPosition(m, mast);
   n.bearing_deg = p.bearing_deg;
   n.distance_m = p.distance_m;
@@ -140,8 +139,7 @@ Obstacle ReadObstacle(const Field& f, const std::optional<Point>& mast,
                       const std::optional<TurbineUnderTest>& tut, NameSet* names) {
   const FieldMap m(f, kObstacleFields);
   Obstacle o;
-  o.name = ReadName(m, "name");
-  names->Add(m.Get("name"), o.name);
+  o.name = names->Read(m);
   const Position p = ReadPosition(m, mast);
   o.bearing_deg = p.bearing_deg;
   o.distance_m = p.distance_m;

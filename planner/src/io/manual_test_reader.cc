@@ -96,13 +96,7 @@ ManualTest ReadTest(const Field& f, const Plan& plan, NameSet* names) {
   const auto [lo, hi] = ReadWindRange(wind);
   test.wind_lo_ms = lo;
   test.wind_hi_ms = hi;
-  if (hi <= turbine.cut_in_ms || lo >= turbine.cut_out_ms) {
-    Fail(wind, PairText(wind) + " lies outside turbine.cut_in_ms to cut_out_ms (" +
-                   FormatNumber(turbine.cut_in_ms) + "-" +
-                   FormatNumber(turbine.cut_out_ms) +
-                   " m/s); a test is done while the turbine produces, so it could "
-                   "never be done");
-  }
+  CheckWindInProduction(wind, lo, hi, turbine, "a test is done while the turbine produces");
   test.min_interval_h =
       ReadNumber(m, "min_interval_h", Interval("(]", 0, 8760, "h"), test.min_interval_h);
   test.dates = ReadActionDates(m, plan);
@@ -112,19 +106,13 @@ ManualTest ReadTest(const Field& f, const Plan& plan, NameSet* names) {
 CrewParking ReadParking(const Field& f, const Plan& plan, NameSet* names) {
   const FieldMap m(f, kParkingFields);
   CrewParking p;
-  p.name = ReadName(m, "name");
-  names->Add(m.Get("name"), p.name);
+  p.name = names->Read(m);
   const Field wind = m.Get("wind_ms");
   const auto [lo, hi] = ReadWindRange(wind);
   p.wind_lo_ms = lo;
   p.wind_hi_ms = hi;
-  const TurbineSpec& t = plan.turbine;
-  if (hi <= t.cut_in_ms || lo >= t.cut_out_ms) {
-    Fail(wind, PairText(wind) + " lies outside turbine.cut_in_ms to cut_out_ms (" +
-                   FormatNumber(t.cut_in_ms) + "-" + FormatNumber(t.cut_out_ms) +
-                   " m/s); the crew parks a producing turbine, so it could never be "
-                   "done");
-  }
+  CheckWindInProduction(wind, lo, hi, plan.turbine,
+                        "the crew parks a producing turbine");
   p.hours = ReadNumber(m, "hours", Interval("(]", 0, 24, "h"));
   p.min_interval_h =
       ReadNumber(m, "min_interval_h", Interval("(]", 0, 8760, "h"), p.min_interval_h);
@@ -140,21 +128,19 @@ void ReadManualTests(const Field& f, Plan* plan) {
   if (!m.Has("tests") && !m.Has("parking")) {
     Fail(f, "has neither tests nor parking; give at least one of them");
   }
+  const Plan& p = *plan;
   if (const auto tests = m.Find("tests")) {
+    // (Messages say "test"; names are unique among the manual tests.)
     const std::vector<Field> items = AsList(*tests);
     if (items.empty()) Fail(*tests, "is empty; give at least one test");
-    NameSet names("manual test");
-    for (const Field& item : items) {
-      plan->manual_tests.push_back(ReadTest(item, *plan, &names));
-    }
+    plan->manual_tests = ReadNamedItems<ManualTest>(
+        *tests, "manual test", 0, "",
+        [&p](const Field& item, NameSet* names) { return ReadTest(item, p, names); });
   }
   if (const auto parking = m.Find("parking")) {
-    const std::vector<Field> items = AsList(*parking);
-    if (items.empty()) Fail(*parking, "is empty; give at least one park test");
-    NameSet names("park test");
-    for (const Field& item : items) {
-      plan->crew_parking.push_back(ReadParking(item, *plan, &names));
-    }
+    plan->crew_parking = ReadNamedItems<CrewParking>(
+        *parking, "park test", 0, "",
+        [&p](const Field& item, NameSet* names) { return ReadParking(item, p, names); });
   }
 }
 

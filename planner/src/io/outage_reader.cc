@@ -162,8 +162,7 @@ Recalibration ReadRecalibration(const Field& f) {
 ChannelGroup ReadChannelGroup(const Field& f, NameSet* names) {
   const FieldMap m(f, kChannelGroupFields);
   ChannelGroup g;
-  g.name = ReadName(m, "name");
-  names->Add(m.Get("name"), g.name);
+  g.name = names->Read(m);
   g.failures = ReadOutageModelFields(m);
   if (g.failures.mtbf_h == 0.0) {
     Fail(m.Get("mtbf_h"), Text(m.Get("mtbf_h")) +
@@ -177,8 +176,7 @@ ChannelGroup ReadChannelGroup(const Field& f, NameSet* names) {
 PlannedOutage ReadPlannedOutage(const Field& f, NameSet* names) {
   const FieldMap m(f, kPlannedFields);
   PlannedOutage outage;
-  outage.name = ReadName(m, "name");
-  names->Add(m.Get("name"), outage.name);
+  outage.name = names->Read(m);
   outage.from = AsDate(m.Get("from"));
   const Field to = m.Get("to");
   outage.to = AsDate(to);
@@ -208,8 +206,7 @@ void ReadEffect(const Field& f, EpisodeModel* e) {
 EpisodeModel ReadEpisode(const Field& f, NameSet* names) {
   const FieldMap m(f, kEpisodeFields);
   EpisodeModel e;
-  e.name = ReadName(m, "name");
-  names->Add(m.Get("name"), e.name);
+  e.name = names->Read(m);
   const Field starts = m.Get("starts_per_month");
   const std::vector<Field> items = AsList(starts);
   if (items.size() != 12) {
@@ -239,41 +236,18 @@ void ReadOutages(const Field& f, Plan* plan) {
   const FieldMap m(f, kOutagesFields);
   if (const auto t = m.Find("turbine")) plan->turbine_outages = ReadOutageModel(*t);
   if (const auto d = m.Find("data_acquisition")) plan->daq_outages = ReadOutageModel(*d);
+  const std::string or_leave_out = ", or leave the field out";
   if (const auto p = m.Find("planned")) {
-    const std::vector<Field> items = AsList(*p);
-    if (items.empty()) {
-      Fail(*p, "is empty; give at least one planned outage, or leave the field out");
-    }
-    NameSet names("planned outage");
-    for (const Field& item : items) {
-      plan->planned_outages.push_back(ReadPlannedOutage(item, &names));
-    }
+    plan->planned_outages = ReadNamedItems<PlannedOutage>(
+        *p, "planned outage", 0, or_leave_out, ReadPlannedOutage);
   }
   if (const auto p = m.Find("episodes")) {
-    const std::vector<Field> items = AsList(*p);
-    if (items.empty()) {
-      Fail(*p, "is empty; give at least one episode, or leave the field out");
-    }
-    if (items.size() > kMaxEpisodes) {
-      Fail(*p, std::to_string(items.size()) + " episodes given; at most " +
-                   std::to_string(kMaxEpisodes) + " are allowed");
-    }
-    NameSet names("episode");
-    for (const Field& item : items) plan->episodes.push_back(ReadEpisode(item, &names));
+    plan->episodes =
+        ReadNamedItems<EpisodeModel>(*p, "episode", kMaxEpisodes, or_leave_out, ReadEpisode);
   }
   if (const auto p = m.Find("channel_groups")) {
-    const std::vector<Field> items = AsList(*p);
-    if (items.empty()) {
-      Fail(*p, "is empty; give at least one channel group, or leave the field out");
-    }
-    if (items.size() > static_cast<size_t>(kMaxChannelGroups)) {
-      Fail(*p, std::to_string(items.size()) + " channel groups given; at most " +
-                   std::to_string(kMaxChannelGroups) + " are allowed");
-    }
-    NameSet names("channel group");
-    for (const Field& item : items) {
-      plan->channel_groups.push_back(ReadChannelGroup(item, &names));
-    }
+    plan->channel_groups = ReadNamedItems<ChannelGroup>(
+        *p, "channel group", kMaxChannelGroups, or_leave_out, ReadChannelGroup);
   }
   plan->parked_counts_during_outage = ReadBool(m, "parked_counts_during_outage", false);
 }

@@ -37,6 +37,14 @@ std::pair<double, double> ReadWindRange(const Field& f) {
   return {lo, hi};
 }
 
+void CheckWindInProduction(const Field& wind, double lo, double hi,
+                           const TurbineSpec& turbine, const std::string& why) {
+  if (hi > turbine.cut_in_ms && lo < turbine.cut_out_ms) return;
+  Fail(wind, PairText(wind) + " lies outside turbine.cut_in_ms to cut_out_ms (" +
+                 FormatNumber(turbine.cut_in_ms) + "-" + FormatNumber(turbine.cut_out_ms) +
+                 " m/s); " + why + ", so it could never be done");
+}
+
 uint32_t ReadChannelNeeds(const Field& f, const Plan& plan) {
   std::vector<std::string> names;
   for (const ChannelGroup& g : plan.channel_groups) names.push_back(g.name);
@@ -80,6 +88,12 @@ bool IsIdentifier(const std::string& name) {
   return std::all_of(name.begin(), name.end(), [](char c) {
     return (c >= 'a' && c <= 'z') || (c >= '0' && c <= '9') || c == '_';
   });
+}
+
+std::string NameSet::Read(const FieldMap& m) {
+  const std::string name = ReadName(m, "name");
+  Add(m.Get("name"), name);
+  return name;
 }
 
 void NameSet::Add(const Field& f, const std::string& name) {

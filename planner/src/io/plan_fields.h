@@ -36,6 +36,12 @@ HourWindow ReadHourWindow(const Field& f);
 // bit mask (Cell::channels).
 uint32_t ReadChannelNeeds(const Field& f, const Plan& plan);
 
+// A wind window [lo, hi] of something done while the turbine produces (a
+// manual test, a park test) must overlap cut_in_ms to cut_out_ms; `why`
+// ends the message ("a test is done while the turbine produces").
+void CheckWindInProduction(const Field& wind, double lo, double hi,
+                           const TurbineSpec& turbine, const std::string& why);
+
 // True if `name` is a lowercase identifier: a-z, then a-z, 0-9 or _.
 bool IsIdentifier(const std::string& name);
 
@@ -47,6 +53,8 @@ class NameSet {
   explicit NameSet(std::string what) : what_(std::move(what)) {}
   // Throws at `f` if `name` was given before; otherwise remembers it.
   void Add(const Field& f, const std::string& name);
+  // The required field "name" of `m` (ReadName), added as above.
+  std::string Read(const FieldMap& m);
   const std::vector<std::string>& names() const { return names_; }
 
  private:
@@ -54,6 +62,25 @@ class NameSet {
   std::vector<std::string> names_;
   std::vector<std::string> paths_;
 };
+
+// The items of a list of named things (planned outages, episodes, tests
+// ...), each read by read_item(field, &names): not empty ("is empty; give at
+// least one WHAT" + when_empty), at most `most` items (0: any number), names
+// unique within the list.
+template <class T, class ReadItem>
+std::vector<T> ReadNamedItems(const Field& f, const std::string& what, size_t most,
+                              const std::string& when_empty, ReadItem read_item) {
+  const std::vector<Field> items = AsList(f);
+  if (items.empty()) Fail(f, "is empty; give at least one " + what + when_empty);
+  if (most > 0 && items.size() > most) {
+    Fail(f, std::to_string(items.size()) + " " + what + "s given; at most " +
+                std::to_string(most) + " are allowed");
+  }
+  NameSet names(what);
+  std::vector<T> out;
+  for (const Field& item : items) out.push_back(read_item(item, &names));
+  return out;
+}
 
 }  // namespace io
 }  // namespace planner

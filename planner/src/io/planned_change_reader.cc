@@ -96,8 +96,7 @@ std::vector<int> ReadResets(const Field& f, const CaptureMatrix& matrix) {
 PlannedChange ReadChange(const Field& f, const Plan& plan, NameSet* names) {
   const FieldMap m(f, kChangeFields);
   PlannedChange change;
-  change.name = ReadName(m, "name");
-  names->Add(m.Get("name"), change.name);
+  change.name = names->Read(m);
   const Field date = m.Get("date");
   change.date = AsDate(date);
   if (DaysBetween(plan.start, change.date) <= 0) {
