@@ -50,7 +50,7 @@ TEST(FuzzRegressionTest, DocumentsAreStillCountedAsBefore) {
       ErrorOf([] { ParseSiteModel("", "site.yaml"); }),
       "site.yaml: expected a mapping, got nothing; valid fields: name, description, "
       "sectors, sector_persistence, wind_persistence_h, monthly_factors, "
-      "hourly_factors, interannual_std, turbulence");
+      "hourly_factors, interannual_std, mean_speed_uncertainty_pct, turbulence");
 }
 
 // The simulation keeps the curtailment rules in force as bits of a 32-bit

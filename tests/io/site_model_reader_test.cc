@@ -47,6 +47,7 @@ TEST(SiteModelReaderTest, MinimalModelGetsDocumentedDefaults) {
   for (double f : site.monthly_factors) EXPECT_DOUBLE_EQ(f, 1.0);
   for (double f : site.hourly_factors) EXPECT_DOUBLE_EQ(f, 1.0);
   EXPECT_DOUBLE_EQ(site.interannual_std, 0.0);
+  EXPECT_DOUBLE_EQ(site.mean_speed_uncertainty_pct, 0.0);
   EXPECT_EQ(site.turbulence.kind, TurbulenceModel::Kind::kIecNtm);
   EXPECT_DOUBLE_EQ(site.turbulence.persistence_h, 0.0);
 }
@@ -56,12 +57,14 @@ TEST(SiteModelReaderTest, ReadsEveryOptionalField) {
                            "description: Invented\n"
                            "sector_persistence: 0.9\n"
                            "wind_persistence_h: 24\n"
-                           "interannual_std: 0.05\n";
+                           "interannual_std: 0.05\n"
+                           "mean_speed_uncertainty_pct: 6\n";
   const SiteModel site = ParseSiteModel(text, kFile);
   EXPECT_EQ(site.description, "Invented");
   EXPECT_DOUBLE_EQ(site.sector_persistence, 0.9);
   EXPECT_DOUBLE_EQ(site.wind_persistence_h, 24.0);
   EXPECT_DOUBLE_EQ(site.interannual_std, 0.05);
+  EXPECT_DOUBLE_EQ(site.mean_speed_uncertainty_pct, 6.0);
 }
 
 TEST(SiteModelReaderTest, RescalesFrequenciesWithinToleranceToSumOne) {
@@ -140,7 +143,8 @@ struct BadSite {
 
 const std::string kValidFields =
     "valid fields: name, description, sectors, sector_persistence, wind_persistence_h, "
-    "monthly_factors, hourly_factors, interannual_std, turbulence";
+    "monthly_factors, hourly_factors, interannual_std, mean_speed_uncertainty_pct, "
+    "turbulence";
 
 std::vector<BadSite> BadSites() {
   const std::string& b = kBaseSite;
@@ -220,6 +224,9 @@ std::vector<BadSite> BadSites() {
        "site.yaml:6:21: wind_persistence_h: -5 is out of range; must be at least 0 and "
        "at "
        "most 8760 h"},
+      {"mean-wind uncertainty too large", b + "mean_speed_uncertainty_pct: 40\n",
+       "site.yaml:6:29: mean_speed_uncertainty_pct: 40 is out of range; must be at least 0 "
+       "and at most 30 %"},
       {"interannual too large", b + "interannual_std: 0.6\n",
        "site.yaml:6:18: interannual_std: 0.6 is out of range; must be at least 0 and at "
        "most 0.5"},

@@ -51,6 +51,14 @@ struct FillPoint {
   double p10 = 0, p50 = 0, p90 = 0;
 };
 
+// With the site model's uncertainty drawn per run: the same runs and seed
+// with the site model taken as exact, i.e. the weather's spread alone.
+struct SiteModelSpread {
+  double mean_speed_uncertainty_pct = 0;  // as stated in the site model
+  QuantileEstimate p10, p50, p80, p90;    // site model taken as exact
+  double p_complete_by_deadline = 0;
+};
+
 // A process switched off (planner/hold_ups.h): the forecast without it, from
 // the same runs and seed.
 struct HoldUp {
@@ -98,6 +106,9 @@ struct ForecastSummary {
 
   // What each process the plan uses costs (empty: none, or not asked for).
   std::vector<HoldUp> hold_ups;
+  // Set when the site model states an uncertainty (and the weather is not
+  // replayed): the forecast above includes it; this is without it.
+  std::optional<SiteModelSpread> site_exact;
 };
 
 // The summary of runs held in a vector (tests, small run counts): the same as

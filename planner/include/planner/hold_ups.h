@@ -44,6 +44,15 @@ std::vector<HoldUp> ForecastHoldUps(const Plan& plan, const SimulationOptions& o
                                     const ForecastSummary& with_all,
                                     ProgressSink* progress);
 
+// When the site model states an uncertainty of its mean wind speed (and the
+// weather is not replayed): the same runs and seed with the site model taken
+// as exact (SimulationOptions::site_uncertainty false), for the split of the
+// spread into weather and site model. nullopt otherwise.
+std::optional<SiteModelSpread> ForecastSiteModelExact(const Plan& plan,
+                                                      const SimulationOptions& options,
+                                                      const MonteCarloOptions& mc,
+                                                      ProgressSink* progress);
+
 }  // namespace planner
 
 #endif  // PLANNER_HOLD_UPS_H_

@@ -95,6 +95,10 @@ struct SimulationOptions {
   // Share of each cell's minimum whose reaching time is also recorded, for
   // "what if this minimum were lowered" (0 < share <= 1). Default 0.8.
   double relaxed_share = 0.8;
+  // Draw the site model's uncertainty (SiteModel::mean_speed_uncertainty_pct)
+  // per run; false: the site model taken as exact, for the split of the
+  // spread into weather and site model.
+  bool site_uncertainty = true;
 };
 
 class Simulator {

@@ -54,6 +54,14 @@ struct SiteModel {
   // simulated campaign year. 0 = every year alike. Default 0.
   double interannual_std = 0.0;
 
+  // Standard uncertainty (one standard deviation) of the long-term mean wind
+  // speed, percent of it, e.g. from a resource assessment. When above 0 each
+  // simulated campaign draws one lognormal factor with mean 1 and this
+  // standard deviation on every A (hierarchical Monte Carlo), so that the
+  // forecast's spread holds what the site model does not know. Default 0:
+  // the site model taken as exact.
+  double mean_speed_uncertainty_pct = 0.0;
+
   TurbulenceModel turbulence;
 
   SiteModel() { hourly_factors.fill(1.0); }

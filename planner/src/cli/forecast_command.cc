@@ -120,6 +120,14 @@ int RunForecast(const ForecastArgs& args) {
   }
   ForecastSummary summary = acc.Summary(mc.seed);
   RequirePlausible(summary, "the forecast");
+  {
+    // The weather's spread alone, beside the one with the site model's
+    // uncertainty (only when the site model states one).
+    MonteCarloOptions same = mc;
+    same.runs = static_cast<int>(summary.runs);
+    TerminalProgress exact("runs, site model exact", args.run.quiet);
+    summary.site_exact = ForecastSiteModelExact(plan, sim_options, same, &exact);
+  }
   if (!args.no_explain) {
     // The same runs with each process switched off (planner/hold_ups.h).
     MonteCarloOptions same = mc;

@@ -25,6 +25,7 @@ const std::vector<std::string> kSiteFields = {"name",
                                               "monthly_factors",
                                               "hourly_factors",
                                               "interannual_std",
+                                              "mean_speed_uncertainty_pct",
                                               "turbulence"};
 const std::vector<std::string> kSectorFields = {"frequency", "weibull_a_ms", "weibull_k"};
 const std::vector<std::string> kNtmFields = {"model", "class", "i_ref", "persistence_h"};
@@ -229,6 +230,8 @@ SiteModel ParseSiteModel(const std::string& yaml_text, const std::string& file_n
   if (const auto f = m.Find("hourly_factors")) ReadHourlyFactors(*f, &site);
   site.interannual_std =
       io::ReadNumber(m, "interannual_std", Interval("[]", 0, 0.5), 0.0);
+  site.mean_speed_uncertainty_pct = io::ReadNumber(m, "mean_speed_uncertainty_pct",
+                                                   Interval("[]", 0, 30, "%"), 0.0);
   site.turbulence = ReadTurbulence(m.Get("turbulence"));
   return site;
 }

@@ -137,6 +137,10 @@ std::string FormatSiteModelYaml(const SiteModel& site,
   out << "monthly_factors: " << List(site.monthly_factors.data(), 12, 12, 17) << "\n";
   out << "hourly_factors: " << List(site.hourly_factors.data(), 24, 12, 17) << "\n";
   out << "interannual_std: " << Num(site.interannual_std) << "\n\n";
+  if (site.mean_speed_uncertainty_pct > 0) {
+    out << "mean_speed_uncertainty_pct: " << Num(site.mean_speed_uncertainty_pct)
+        << "\n\n";
+  }
   WriteTurbulence(site.turbulence, out);
   return out.str();
 }

@@ -145,6 +145,31 @@ std::string TextHeader(const Plan& plan, const ForecastSummary& s,
   return out;
 }
 
+// The weather's spread alone beside the one with the site model's
+// uncertainty, when the site model states one.
+std::string TextSiteSpread(const ForecastSummary& s) {
+  if (!s.site_exact) return "";
+  const SiteModelSpread& e = *s.site_exact;
+  std::string out = StringPrintf(
+      "\nSpread from the weather and from the site model (mean wind speed known to "
+      "%g %%, 1 s.d.)\n"
+      "  %-32s %11s %11s %11s %11s %12s\n",
+      e.mean_speed_uncertainty_pct, "weeks from the start", "P10", "P50", "P80", "P90", "by deadline");
+  const auto row = [&out](const char* name, const QuantileEstimate& p10,
+                          const QuantileEstimate& p50, const QuantileEstimate& p80,
+                          const QuantileEstimate& p90, double by_deadline) {
+    out += StringPrintf("  %-32s %11s %11s %11s %11s %12s\n", name,
+                        WeeksText(p10.value, 11).c_str(), WeeksText(p50.value, 11).c_str(),
+                        WeeksText(p80.value, 11).c_str(), WeeksText(p90.value, 11).c_str(),
+                        Percent(by_deadline).c_str());
+  };
+  row("weather alone (site model exact)", e.p10, e.p50, e.p80, e.p90,
+      e.p_complete_by_deadline);
+  row("weather and site model (above)", s.p10, s.p50, s.p80, s.p90,
+      s.p_complete_by_deadline);
+  return out;
+}
+
 std::string TextCompletion(const Plan& plan, const ForecastSummary& s) {
   std::string out = "\nWeeks to a full capture matrix (all required cells)\n";
   out +=
@@ -176,6 +201,7 @@ std::string TextCompletion(const Plan& plan, const ForecastSummary& s) {
                       Percent(s.p_incomplete_at_horizon).c_str());
   const std::string held_up = HeldUpSentence(plan, s);
   if (!held_up.empty()) out += "\n" + Wrap("  ", held_up);
+  out += TextSiteSpread(s);
   return out;
 }
 
@@ -443,6 +469,15 @@ std::string FormatForecastJson(const Plan& plan, const ForecastSummary& s,
                       {"mean_speed_ms", s.mean_speed_ms}};
   if (!plan.channel_groups.empty())
     j["diagnostics"]["channels_availability"] = s.channels_availability;
+  if (s.site_exact) {
+    const SiteModelSpread& e = *s.site_exact;
+    j["site_model_exact"] = {{"mean_speed_uncertainty_pct", e.mean_speed_uncertainty_pct},
+                             {"p10", OptionalNumber(e.p10.value)},
+                             {"p50", OptionalNumber(e.p50.value)},
+                             {"p80", OptionalNumber(e.p80.value)},
+                             {"p90", OptionalNumber(e.p90.value)},
+                             {"p_complete_by_deadline", e.p_complete_by_deadline}};
+  }
   if (!s.hold_ups.empty()) {
     j["hold_ups"] = Json::array();
     for (const HoldUp& h : s.hold_ups) {

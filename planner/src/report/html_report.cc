@@ -295,6 +295,29 @@ std::string FillSection(const HtmlReportInput& in) {
 
 // ---- optional sections ---------------------------------------------------------
 
+std::string SiteSpreadSection(const HtmlReportInput& in) {
+  const ForecastSummary& s = *in.forecast;
+  if (!s.site_exact) return "";
+  const SiteModelSpread& e = *s.site_exact;
+  auto weeks = [](const QuantileEstimate& q) {
+    return TdNum(q.value ? StringPrintf("%.1f", *q.value) : std::string("not reached"));
+  };
+  std::string out = StringPrintf(
+      "<section id=\"site-spread\">\n<h2>Spread from the weather and from the site "
+      "model</h2>\n<p>The site model states its mean wind speed to %g %% (one standard "
+      "deviation); each simulated campaign draws its own. Weeks from the start:</p>\n"
+      "<table>\n<thead><tr><th></th><th>P10</th><th>P50</th><th>P80</th><th>P90</th>"
+      "<th>Complete by the deadline</th></tr></thead>\n<tbody>\n",
+      e.mean_speed_uncertainty_pct);
+  out += "<tr>" + Td("weather alone (site model taken as exact)") + weeks(e.p10) +
+         weeks(e.p50) + weeks(e.p80) + weeks(e.p90) +
+         TdNum(PercentText(e.p_complete_by_deadline)) + "</tr>\n";
+  out += "<tr>" + Td("weather and site model (this forecast)") + weeks(s.p10) +
+         weeks(s.p50) + weeks(s.p80) + weeks(s.p90) +
+         TdNum(PercentText(s.p_complete_by_deadline)) + "</tr>\n";
+  return out + "</tbody>\n</table>\n</section>\n";
+}
+
 std::string HoldUpsSection(const HtmlReportInput& in) {
   const ForecastSummary& s = *in.forecast;
   if (s.hold_ups.empty()) return "";
@@ -523,6 +546,7 @@ std::string FormatHtmlReport(const HtmlReportInput& in) {
   out += SummarySection(in);
   out += ProgressHtmlSection(in);
   out += CompletionSection(in);
+  out += SiteSpreadSection(in);
   out += MatrixSection(in);
   out += FillSection(in);
   out += HoldUpsSection(in);

@@ -94,6 +94,7 @@ void CompileWeather(const SiteModel& site, const std::vector<AngleRange>& valid,
   m->monthly_factors = site.monthly_factors;
   m->hourly_factors = site.hourly_factors;
   m->interannual_std = site.interannual_std;
+  m->site_mean_speed_cv = site.mean_speed_uncertainty_pct / 100.0;
   m->wind_ar1 = LatentAr1(site.wind_persistence_h);
   m->ti_ar1 = Ar1Skipper(site.turbulence.persistence_h);
   m->ti_law = TiLaw(site.turbulence);

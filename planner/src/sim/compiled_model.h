@@ -151,6 +151,9 @@ struct CompiledModel {
   std::array<double, 12> monthly_factors{};
   std::array<double, 24> hourly_factors{};
   double interannual_std = 0;
+  // Per run: a lognormal factor with mean 1 and this standard deviation on
+  // every A (0: none; the site model's uncertainty, or taken as exact).
+  double site_mean_speed_cv = 0;
   LatentAr1 wind_ar1;
   Ar1Skipper ti_ar1;  // TI's latent series, advanced only when needed
   TiLaw ti_law;

@@ -76,6 +76,31 @@ HoldUp MakeHoldUp(const ProcessVariant& v, const ForecastSummary& with_all,
   return h;
 }
 
+std::optional<SiteModelSpread> ForecastSiteModelExact(const Plan& plan,
+                                                      const SimulationOptions& options,
+                                                      const MonteCarloOptions& mc,
+                                                      ProgressSink* progress) {
+  if (plan.site.mean_speed_uncertainty_pct <= 0 || plan.replay) return std::nullopt;
+  SimulationOptions exact = options;
+  exact.site_uncertainty = false;
+  const Simulator sim(plan, exact);
+  ForecastAccumulator acc(plan.matrix, sim.deadline_steps(), sim.horizon_steps(),
+                          sim.relaxed_share());
+  RunMonteCarloInChunks({&sim}, mc, progress,
+                        [&acc](uint64_t, const std::vector<std::vector<RunResult>>& c) {
+                          for (const RunResult& r : c[0]) acc.Add(r);
+                        });
+  const ForecastSummary s = acc.Summary(mc.seed);
+  SiteModelSpread out;
+  out.mean_speed_uncertainty_pct = plan.site.mean_speed_uncertainty_pct;
+  out.p10 = s.p10;
+  out.p50 = s.p50;
+  out.p80 = s.p80;
+  out.p90 = s.p90;
+  out.p_complete_by_deadline = s.p_complete_by_deadline;
+  return out;
+}
+
 std::vector<HoldUp> ForecastHoldUps(const Plan& plan, const SimulationOptions& options,
                                     const MonteCarloOptions& mc,
                                     const ForecastSummary& with_all,

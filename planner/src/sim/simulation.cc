@@ -25,6 +25,7 @@ constexpr uint64_t kReplaySalt = 0x7265706C61792D62ULL;
 constexpr uint64_t kShutdownSalt = 0x6869676877696E64ULL;
 constexpr uint64_t kEpisodeSalt = 0x6570697365646531ULL;  // + the episode's index
 constexpr uint64_t kChannelSalt = 0x6368616E6E656C31ULL;  // + the group's index
+constexpr uint64_t kSiteSalt = 0x736974652D6D6F64ULL;
 
 // Normal score z with Phi(z) = F(x) for a unit-scale Weibull of shape k:
 // the inverse of SpeedTransform (Boost.Math's normal quantile).
@@ -585,14 +586,25 @@ void RunLoop::Trace(int64_t step, double speed_ms, int state, bool quality_ok,
 
 // One lognormal factor with mean 1 and standard deviation interannual_std per
 // campaign year, from its own stream.
+// Times the site model's uncertainty: one lognormal factor with mean 1 and
+// standard deviation site_mean_speed_cv for the whole run, from a stream of
+// its own (the weather and the year factors stay as they were).
 void RunLoop::DrawYearFactors() {
   const size_t years = m_.day_year.empty() ? 1 : m_.day_year.back() + 1;
   year_factor_.assign(years, 1.0);
-  if (m_.interannual_std <= 0.0) return;
-  Engine e = MakeRunEngine(seed_ ^ kYearSalt, run_);
-  const double cv = m_.interannual_std;
-  const double s = std::sqrt(std::log1p(cv * cv));
-  for (double& f : year_factor_) f = std::exp(-0.5 * s * s + s * normal_(e));
+  const auto lognormal = [this](Engine& e, double cv) {
+    const double s = std::sqrt(std::log1p(cv * cv));
+    return std::exp(-0.5 * s * s + s * normal_(e));
+  };
+  if (m_.interannual_std > 0.0) {
+    Engine e = MakeRunEngine(seed_ ^ kYearSalt, run_);
+    for (double& f : year_factor_) f = lognormal(e, m_.interannual_std);
+  }
+  if (m_.site_mean_speed_cv > 0.0) {
+    Engine e = MakeRunEngine(seed_ ^ kSiteSalt, run_);
+    const double site = lognormal(e, m_.site_mean_speed_cv);
+    for (double& f : year_factor_) f *= site;
+  }
 }
 
 // Counts so far, cells already full, and the weather started from the latest
@@ -878,9 +890,18 @@ void RunLoop::Stop(int64_t steps, const RunState& s) {
 
 }  // namespace
 
-Simulator::Simulator(const Plan& plan, const SimulationOptions& options)
-    : model_(std::make_unique<CompiledModel>(CompileModel(plan, options.relaxed_share))) {
+namespace {
+
+CompiledModel CompileFor(const Plan& plan, const SimulationOptions& options) {
+  CompiledModel m = CompileModel(plan, options.relaxed_share);
+  if (!options.site_uncertainty) m.site_mean_speed_cv = 0.0;  // taken as exact
+  return m;
 }
+
+}  // namespace
+
+Simulator::Simulator(const Plan& plan, const SimulationOptions& options)
+    : model_(std::make_unique<CompiledModel>(CompileFor(plan, options))) {}
 
 Simulator::~Simulator() = default;
 
