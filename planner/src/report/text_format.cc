@@ -37,7 +37,13 @@ std::string PlanHeaderLines(const Plan& plan, size_t label_width) {
     return l + std::string(label_width > l.size() ? label_width - l.size() : 1, ' ');
   };
   std::string out = Wrap(label("Plan"), plan.name);
-  out += Wrap(label("Site"), plan.site.name);
+  out += Wrap(label("Site"),
+              plan.site.name +
+                  (plan.site.mean_speed_uncertainty_pct > 0 && !plan.replay
+                       ? StringPrintf(" (mean wind speed known to %g %%, 1 s.d.; each run "
+                                      "draws its own)",
+                                      plan.site.mean_speed_uncertainty_pct)
+                       : std::string()));
   out += Wrap(label("Weather"), WeatherSourceText(plan));
   if (!plan.turbine.name.empty()) out += Wrap(label("Turbine"), plan.turbine.name);
   if (const std::string h = HighWindText(plan.turbine); !h.empty())
